@@ -1,0 +1,168 @@
+#include "certificate/certificate.hpp"
+
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+namespace porecert::certificate {
+
+using nlohmann::json;
+
+namespace {
+std::string up_str(double v) {
+  if (std::isinf(v)) return "inf";
+  return arith::decimal_upper(arith::Id(v), 17);
+}
+std::string down_str(double v) {
+  if (std::isinf(v)) return "inf";
+  return arith::decimal_lower(arith::Id(v), 17);
+}
+json pair(const proof::Enclosure& e) { return json::array({e.lo, e.hi}); }
+const char* kValueKeys[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
+}  // namespace
+
+json to_json(const Problem& p, const proof::CertifyOutcome& o) {
+  json j;
+  j["format"] = kFormat;
+  j["format_version"] = kFormatVersion;
+  j["status"] = o.certified ? "certified" : "not certified";
+  j["R"] = json::array({p.R_lo, p.R_hi});
+  j["problem"] = {
+      {"model", "berman-half-channel"},
+      {"equation", "f'''' + R (f' f'' - f f''') = 0 on [0,1]; integrated: f''' + R (f'^2 - f f'') = K"},
+      {"boundary_conditions", json::array({"f(0) = 0", "f''(0) = 0", "f(1) = 1", "f'(1) = 0"})},
+      {"parameters", {{"R", json::array({p.R_lo, p.R_hi})}}},
+      {"R_meaning", "wall Reynolds number V h / nu; R > 0 suction, R < 0 injection; the certificate holds for every R in the interval"}};
+  if (!p.scenario.empty()) j["scenario"] = p.scenario;
+  if (!p.branch.empty()) j["branch"] = p.branch;
+  j["method"] = "newton-kantorovich";
+  j["space"] = {
+      {"description",
+       "x = (f'(0), K, u) with u = f''' as a Chebyshev series on [0,1]; norm |f'(0)| + |K| + sum_k |u_k| "
+       "(l1 of Chebyshev coefficients, weight 1 on every component)"},
+      {"weights", {{"f'(0)", 1}, {"K", 1}, {"u_k", "1 (nu = 1)"}}}};
+  j["existence_radius"] = up_str(o.existence_radius);
+  j["uniqueness_radius"] = down_str(o.uniqueness_radius);
+  j["uniqueness"] = o.certified ? "the true solution is the only one in the open ball of radius uniqueness_radius about "
+                                  "the candidate, in the space above (not a global uniqueness claim)"
+                                : "none";
+  j["error_bounds"] = {{"sup|f - fbar|", up_str(o.c3_error[0])},
+                       {"sup|f' - fbar'|", up_str(o.c3_error[1])},
+                       {"sup|f'' - fbar''|", up_str(o.c3_error[2])},
+                       {"sup|f''' - fbar'''|", up_str(o.c3_error[3])}};
+  if (o.certified) {
+    j["values"] = {{kValueKeys[0], pair(o.fp0)}, {kValueKeys[1], pair(o.fppp0)}, {kValueKeys[2], pair(o.fpp1)},
+                   {kValueKeys[3], pair(o.K)}};
+  } else {
+    j["values"] = json::object();
+    j["failure"] = o.failure;
+  }
+  j["bounds"] = {{"Y0", up_str(o.Y0)},
+                 {"Z0", up_str(o.Z0)},
+                 {"Z1", up_str(o.Z1)},
+                 {"Z2", up_str(o.Z2)},
+                 {"norm_A", up_str(o.A_norm)},
+                 {"radii_polynomial", "p(r) = Z2 r^2 - (1 - max(Z0, Z1)) r + Y0 < 0 at r = existence_radius"}};
+  j["candidate"] = {{"modes", o.modes},
+                    {"arithmetic", o.precision_bits <= 53 ? "double intervals" : "MPFR intervals"},
+                    {"precision_bits", o.precision_bits},
+                    {"layout", "[f'(0), K, u_0, ..., u_{N-1}], u = f''' = sum u_k T_k(2 eta - 1)"},
+                    {"coefficients_hex", o.candidate_hex}};
+  j["log"] = o.log;
+  j["seconds"] = o.seconds;
+  j["caution"] = kCaution;
+  j["software"] = {{"name", "porecert"}, {"version", "0.1.0"}};
+  return j;
+}
+
+namespace {
+const json& need(const json& j, const char* key, json::value_t type, const char* rule) {
+  if (!j.is_object() || !j.contains(key))
+    throw format_error(std::string("certificate: key \"") + key + "\" is missing (" + rule + ")");
+  const json& v = j.at(key);
+  if (v.type() != type && !(type == json::value_t::number_integer && v.is_number_unsigned()))
+    throw format_error(std::string("certificate: key \"") + key + "\" has value " + v.dump().substr(0, 60) +
+                       " (" + rule + ")");
+  return v;
+}
+std::array<std::string, 2> str_pair(const json& v, const std::string& key) {
+  if (!v.is_array() || v.size() != 2 || !v[0].is_string() || !v[1].is_string())
+    throw format_error("certificate: \"" + key + "\" must be [lo, hi] as two decimal strings, got " + v.dump().substr(0, 60));
+  return {v[0].get<std::string>(), v[1].get<std::string>()};
+}
+}  // namespace
+
+Stored parse(const json& j) {
+  Stored s;
+  const auto& fmt = need(j, "format", json::value_t::string, "must be \"porecert-certificate\"");
+  if (fmt.get<std::string>() != kFormat)
+    throw format_error("certificate: key \"format\" is \"" + fmt.get<std::string>() + "\", must be \"porecert-certificate\"");
+  s.status = need(j, "status", json::value_t::string, "\"certified\" or \"not certified\"").get<std::string>();
+  if (s.status != "certified" && s.status != "not certified")
+    throw format_error("certificate: key \"status\" is \"" + s.status + "\", must be \"certified\" or \"not certified\"");
+  const auto R = str_pair(need(j, "R", json::value_t::array, "[lo, hi] decimal strings"), "R");
+  s.problem.R_lo = R[0];
+  s.problem.R_hi = R[1];
+  const auto& prob = need(j, "problem", json::value_t::object, "the problem statement");
+  const auto model = need(prob, "model", json::value_t::string, "model identifier").get<std::string>();
+  if (model != "berman-half-channel")
+    throw format_error("certificate: problem.model is \"" + model + "\"; this version re-checks \"berman-half-channel\"");
+  if (j.contains("branch") && j["branch"].is_string()) s.problem.branch = j["branch"].get<std::string>();
+  const auto& cand = need(j, "candidate", json::value_t::object, "the candidate, exactly");
+  s.precision_bits = need(cand, "precision_bits", json::value_t::number_integer, "an integer >= 53").get<int>();
+  if (s.precision_bits < 53 || s.precision_bits > 100000)
+    throw format_error("certificate: candidate.precision_bits is " + std::to_string(s.precision_bits) +
+                       ", must be in [53, 100000]");
+  const auto& coeffs = need(cand, "coefficients_hex", json::value_t::array, "list of exact hex strings");
+  const int modes = need(cand, "modes", json::value_t::number_integer, "number of Chebyshev modes").get<int>();
+  for (const auto& c : coeffs) {
+    if (!c.is_string()) throw format_error("certificate: candidate.coefficients_hex holds a non-string " + c.dump());
+    s.candidate_hex.push_back(c.get<std::string>());
+  }
+  if (static_cast<int>(s.candidate_hex.size()) != modes + 2)
+    throw format_error("certificate: candidate.coefficients_hex has " + std::to_string(s.candidate_hex.size()) +
+                       " entries, must be modes + 2 = " + std::to_string(modes + 2) + " (truncated?)");
+  const auto er = need(j, "existence_radius", json::value_t::string, "decimal string").get<std::string>();
+  try {
+    s.existence_radius = arith::from_decimal<arith::Id>(er).upper();
+  } catch (const std::invalid_argument&) {
+    throw format_error("certificate: existence_radius is \"" + er + "\", must be a decimal number");
+  }
+  const auto& vals = need(j, "values", json::value_t::object, "the value enclosures");
+  if (s.status == "certified")
+    for (int i = 0; i < 4; ++i) {
+      if (!vals.contains(kValueKeys[i])) throw format_error(std::string("certificate: values.\"") + kValueKeys[i] + "\" is missing");
+      s.values[i] = str_pair(vals.at(kValueKeys[i]), std::string("values.") + kValueKeys[i]);
+    }
+  return s;
+}
+
+json read_file(const std::string& path) {
+  std::ifstream in(path);
+  if (!in) throw format_error("certificate: cannot read file '" + path + "'");
+  std::stringstream ss;
+  ss << in.rdbuf();
+  try {
+    return json::parse(ss.str());
+  } catch (const json::parse_error& e) {
+    throw format_error("certificate: '" + path + "' is not valid JSON (truncated?): " + e.what());
+  }
+}
+
+void write_atomic(const std::string& path, const std::string& text) {
+  if (path == "-") {
+    std::fwrite(text.data(), 1, text.size(), stdout);
+    return;
+  }
+  const std::string tmp = path + ".tmp-porecert";
+  {
+    std::ofstream out(tmp, std::ios::binary | std::ios::trunc);
+    if (!out) throw std::runtime_error("cannot write '" + tmp + "'");
+    out << text;
+    if (!out) throw std::runtime_error("cannot write '" + tmp + "'");
+  }
+  std::filesystem::rename(tmp, path);
+}
+
+}  // namespace porecert::certificate

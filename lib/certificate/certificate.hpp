@@ -1,0 +1,47 @@
+// Certificates: JSON documents complete enough to be re-checked from their own content
+// (docs/certificate.md). Writing is atomic (temp file + rename): a failure loses nothing.
+#pragma once
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "proof/certify.hpp"
+
+namespace porecert::certificate {
+
+inline constexpr const char* kFormat = "porecert-certificate";
+inline constexpr int kFormatVersion = 1;
+
+struct Problem {
+  std::string R_lo, R_hi;   // decimal strings as given
+  std::string branch;       // "I", "II", "III" or "" (unlabelled)
+  std::string scenario;     // case title, if any
+};
+
+nlohmann::json to_json(const Problem& p, const proof::CertifyOutcome& o);
+
+// Thrown for a malformed or truncated certificate; the message names the key and the rule.
+struct format_error : std::runtime_error {
+  using std::runtime_error::runtime_error;
+};
+
+// Reads and validates the fixed keys; throws format_error.
+struct Stored {
+  Problem problem;
+  std::string status;
+  int precision_bits = 53;
+  std::vector<std::string> candidate_hex;
+  double existence_radius = 0;
+  std::array<std::array<std::string, 2>, 4> values;  // f'(0), f'''(0), f''(1), K
+};
+Stored parse(const nlohmann::json& j);
+nlohmann::json read_file(const std::string& path);  // throws format_error on unreadable / invalid JSON
+
+// Writes text to path ("-" = stdout) atomically.
+void write_atomic(const std::string& path, const std::string& text);
+
+inline const char* kCaution =
+    "Certifies mathematics, not a plant. The similarity model assumes fully developed, steady, laminar, "
+    "Newtonian flow with uniform wall velocity, far from inlet and exit. Defer to local codes and licensed "
+    "engineering practice before using any number here in a design.";
+
+}  // namespace porecert::certificate

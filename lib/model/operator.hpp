@@ -1,0 +1,117 @@
+// The map F of (M1.2)-(M1.3) and its derivative, for any scalar S (docs/method.md §M1).
+// On interval types the results enclose the exact values for all data inside the inputs.
+#pragma once
+#include <array>
+#include <cassert>
+
+#include "model/model.hpp"
+
+namespace porecert::model {
+
+// D^0 f .. D^3 f as Chebyshev series, from the constants f^{(d)}(0) and u = f''' (M1.1).
+template <class S>
+std::array<cheb::Series<S>, 4> lift(const std::array<S, 3>& at0, const cheb::Series<S>& u) {
+  std::array<cheb::Series<S>, 4> D;
+  D[3] = u.empty() ? cheb::Series<S>{S(0)} : u;
+  for (int d = 2; d >= 0; --d) D[d] = cheb::antiderivative(D[d + 1], at0[d]);
+  return D;
+}
+
+// Constants f^{(d)}(0) of the unknown x (fixed ones from the model) and its u part.
+template <class S>
+std::array<S, 3> constants_of(const Model<S>& m, const std::vector<S>& x) {
+  std::array<S, 3> c{S(0), S(0), S(0)};
+  for (int d = 0; d < 3; ++d) c[d] = m.fixed_at_0[d] ? *m.fixed_at_0[d] : x[m.free_index(d)];
+  return c;
+}
+template <class S>
+cheb::Series<S> u_of(const Model<S>& m, const std::vector<S>& x) {
+  return cheb::Series<S>(x.begin() + m.n_scalars(), x.end());
+}
+
+// Product that skips exact zeros of b (the direction series are sparse).
+template <class S>
+cheb::Series<S> product_sparse(const cheb::Series<S>& a, const cheb::Series<S>& b) {
+  if (a.empty() || b.empty()) return {};
+  cheb::Series<S> p(a.size() + b.size() - 1, S(0));
+  for (std::size_t j = 0; j < b.size(); ++j) {
+    if constexpr (arith::Interval<S>) {
+      if (b[j].lower() == 0 && b[j].upper() == 0) continue;
+    } else {
+      if (b[j] == S(0)) continue;
+    }
+    const S bj = b[j] / S(2);
+    for (std::size_t i = 0; i < a.size(); ++i) {
+      const S h = a[i] * bj;
+      p[i + j] = p[i + j] + h;
+      const std::size_t k = i > j ? i - j : j - i;
+      p[k] = p[k] + h;
+    }
+  }
+  return p;
+}
+
+template <class S>
+struct Value {
+  std::vector<S> rows;     // boundary rows (M1.3), residual form Σ a_d D^d f(1) − value
+  cheb::Series<S> fun;     // (M1.2), all coefficients (no truncation)
+};
+
+// F(x): exact enclosure of the residual (no truncation; length ≈ 2·len(u) + 8).
+template <class S>
+Value<S> residual(const Model<S>& m, const std::vector<S>& x) {
+  assert(m.well_formed());
+  const auto D = lift(constants_of(m, x), u_of(m, x));
+  Value<S> v;
+  for (const auto& r : m.rows) {
+    S s = S(0) - r.value;
+    for (int d = 0; d < 3; ++d) s = s + r.coef[d] * cheb::value_at_1(D[d]);
+    v.rows.push_back(s);
+  }
+  cheb::Series<S> f = D[3];
+  f[0] = f[0] - x[m.k_index()];
+  for (const auto& t : m.lin)
+    f = cheb::add(f, cheb::scale(t.weight.empty() ? D[t.d] : product_sparse(D[t.d], t.weight), t.coef));
+  for (const auto& t : m.quad) f = cheb::add(f, cheb::scale(cheb::product(D[t.d1], D[t.d2]), t.coef));
+  v.fun = std::move(f);
+  return v;
+}
+
+// DF(x̄) applied to the unit direction e_j of the unknown layout; Dbar = lift of x̄.
+template <class S>
+Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, std::size_t j) {
+  const int ns = m.n_scalars();
+  std::array<S, 3> c{S(0), S(0), S(0)};
+  cheb::Series<S> u;
+  S dK(0);
+  if (static_cast<int>(j) < ns) {
+    if (static_cast<int>(j) == m.k_index()) {
+      dK = S(1);
+    } else {
+      for (int d = 0; d < 3; ++d)
+        if (m.free_index(d) == static_cast<int>(j)) c[d] = S(1);
+    }
+  } else {
+    u.assign(j - ns + 1, S(0));
+    u.back() = S(1);
+  }
+  const auto D = lift(c, u);
+  Value<S> v;
+  for (const auto& r : m.rows) {
+    S s(0);
+    for (int d = 0; d < 3; ++d) s = s + r.coef[d] * cheb::value_at_1(D[d]);
+    v.rows.push_back(s);
+  }
+  cheb::Series<S> f = D[3];
+  f[0] = f[0] - dK;
+  for (const auto& t : m.lin)
+    f = cheb::add(f, cheb::scale(t.weight.empty() ? D[t.d] : product_sparse(t.weight, D[t.d]), t.coef));
+  for (const auto& t : m.quad) {
+    f = cheb::add(f, cheb::scale(product_sparse(Dbar[t.d1], D[t.d2]), t.coef));
+    f = cheb::add(f, cheb::scale(product_sparse(Dbar[t.d2], D[t.d1]), t.coef));
+  }
+  v.fun = std::move(f);
+  return v;
+}
+
+}  // namespace porecert::model

@@ -1,0 +1,285 @@
+#include "proof/newton_kantorovich.hpp"
+
+#include <Eigen/LU>
+#include <algorithm>
+#include <cmath>
+#include <sstream>
+#include <stdexcept>
+
+#include "arith/midrad.hpp"
+#include "model/operator.hpp"
+#include "proof/tail_bounds.hpp"
+
+namespace porecert::proof {
+
+using arith::Id;
+using arith::Im;
+using arith::MatD;
+using arith::MidRad;
+using R = arith::rounded_nearest_outward;
+
+namespace {
+
+double up_add(double a, double b) { return R::add_up(a, b); }
+double up_mul(double a, double b) { return R::mul_up(a, b); }
+
+// One "piece" of DF − I on u-directions: c · g · J^m (docs/method.md (M3.6)).
+struct Piece {
+  double c_abs;
+  std::vector<double> g_abs;  // |g_a| rounded up
+  int m;
+};
+
+std::vector<Piece> pieces_of(const model::Model<Id>& m, const std::array<cheb::Series<Id>, 4>& Dbar) {
+  std::vector<Piece> out;
+  auto absvec = [](const cheb::Series<Id>& s) {
+    std::vector<double> v;
+    for (const Id& x : s) v.push_back(arith::mag_up(x));
+    return v;
+  };
+  for (const auto& t : m.lin)
+    out.push_back({arith::mag_up(t.coef), t.weight.empty() ? std::vector<double>{1.0} : absvec(t.weight), 3 - t.d});
+  for (const auto& t : m.quad) {
+    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d1]), 3 - t.d2});
+    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d2]), 3 - t.d1});
+  }
+  return out;
+}
+
+double sum_up(const std::vector<double>& v) {
+  double s = 0;
+  for (double x : v) s = up_add(s, x);
+  return s;
+}
+
+// ℓ¹ and sup norms of D^d of unit vectors of X: constants give η^j/j!, u-modes J^{3−d} T_k.
+struct LiftNorms {
+  std::array<double, 4> l1{}, sup{};
+};
+LiftNorms lift_norms(const model::Model<Id>& m) {
+  LiftNorms r;
+  const double inv_fact_up[4] = {1.0, 1.0, 0.5, R::div_up(1.0, 6.0)};
+  for (int d = 0; d < 4; ++d) {
+    double l1 = 0, sup = 0;
+    for (int e = d; e < 3; ++e)
+      if (!m.fixed_at_0[e]) {  // constant f^{(e)}(0): D^d = η^{e−d}/(e−d)!, ℓ¹ = sup = 1/(e−d)!
+        l1 = std::max(l1, inv_fact_up[e - d]);
+        sup = std::max(sup, inv_fact_up[e - d]);
+      }
+    // u-modes: sup|J^{3−d} T_k| ≤ 1/(3−d)!; ℓ¹ exact for k < 40, (M3.5) beyond.
+    sup = std::max(sup, inv_fact_up[3 - d]);
+    const JBounds jb = j_tail_bounds(40);
+    l1 = std::max(l1, up_add(jb.band[3 - d], jb.low[3 - d]));
+    for (int k = 0; k < 40; ++k) {
+      cheb::Series<Id> s(k + 1, Id(0));
+      s[k] = Id(1);
+      for (int i = 0; i < 3 - d; ++i) s = cheb::antiderivative(s, Id(0));
+      l1 = std::max(l1, cheb::norm1_up(s));
+    }
+    r.l1[d] = l1;
+    r.sup[d] = sup;
+  }
+  return r;
+}
+
+template <arith::Interval I>
+Id to_id(const I& x) {
+  return arith::to_id(x);
+}
+
+// Y-part: ‖A_N F_top‖ for interval F_top (double A treated as exact).
+double apply_norm(const MatD& A, const std::vector<Id>& F) {
+  const Eigen::Index n = A.rows();
+  MidRad f{MatD(n, 1), MatD(n, 1)};
+  for (Eigen::Index i = 0; i < n; ++i) {
+    const double mid = arith::mid_double(F[i]);
+    f.mid(i, 0) = mid;
+    f.rad(i, 0) = std::max(R::sub_up(F[i].upper(), mid), R::sub_up(mid, F[i].lower()));
+  }
+  const MidRad y = arith::product(A, f);
+  return arith::column_norms_up(y)(0);
+}
+double apply_norm(const MatD& A, const std::vector<Im>& F) {
+  const Eigen::Index n = A.rows();
+  double s = 0;
+  for (Eigen::Index i = 0; i < n; ++i) {
+    Im acc(0);
+    for (Eigen::Index j = 0; j < n; ++j)
+      if (A(i, j) != 0) acc = acc + Im(arith::Mpfr(A(i, j))) * F[j];
+    s = up_add(s, arith::mag_up(acc));
+  }
+  return s;
+}
+
+std::string fmt(double v) {
+  std::ostringstream o;
+  o.precision(3);
+  o << v;
+  return o.str();
+}
+
+}  // namespace
+
+double tail_estimate(const model::Model<Id>& m, const std::vector<Id>& xbar, long N) {
+  const auto Dbar = model::lift(model::constants_of(m, xbar), model::u_of(m, xbar));
+  const JBounds jb = j_tail_bounds(N);
+  double tail = 0;
+  for (const Piece& p : pieces_of(m, Dbar))
+    tail = up_add(tail, up_mul(up_mul(p.c_abs, sum_up(p.g_abs)), up_add(jb.band[p.m], jb.low[p.m])));
+  return tail;
+}
+
+template <arith::Interval I>
+NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
+  if (!m.well_formed()) throw std::invalid_argument("model is not square (rows != scalar unknowns)");
+  const int ns = m.n_scalars();
+  const int N = static_cast<int>(xbar.size()) - ns;
+  if (N < 8) throw std::invalid_argument("candidate needs at least 8 Chebyshev modes");
+  const int n = ns + N;
+  arith::require_round_to_nearest();
+  arith::midrad_self_test();
+
+  NKResult<I> res;
+  res.modes = N;
+  // ---- double-interval copies for the Z bounds (docs/method.md §M3, mixed precision §M4) ----
+  const model::Model<Id> md = model::convert<Id>(m, [](const I& v) { return to_id(v); });
+  std::vector<Id> xd;
+  for (const I& v : xbar) xd.push_back(to_id(v));
+  const auto Dbar = model::lift(model::constants_of(md, xd), model::u_of(md, xd));
+
+  // ---- DF(x̄): finite block as midpoint-radius, spill below mode N as column norms ----
+  MidRad D{MatD::Zero(n, n), MatD::Zero(n, n)};
+  Eigen::VectorXd spill = Eigen::VectorXd::Zero(n);
+  for (int j = 0; j < n; ++j) {
+    const auto col = model::derivative_column(md, Dbar, j);
+    auto put = [&](int i, const Id& v) {
+      const double mid = arith::mid_double(v);
+      D.mid(i, j) = mid;
+      D.rad(i, j) = std::max(R::sub_up(v.upper(), mid), R::sub_up(mid, v.lower()));
+    };
+    for (int i = 0; i < ns; ++i) put(i, col.rows[i]);
+    for (int k = 0; k < static_cast<int>(col.fun.size()); ++k) {
+      if (k < N)
+        put(ns + k, col.fun[k]);
+      else
+        spill(j) = up_add(spill(j), arith::mag_up(col.fun[k]));
+    }
+  }
+  const Eigen::PartialPivLU<MatD> lu(D.mid);
+  const MatD A = lu.inverse();
+  if (!A.allFinite()) {
+    res.failure = "the finite part of DF(candidate) is numerically singular (no approximate inverse)";
+    return res;
+  }
+  res.bounds.A_norm = std::max(1.0, arith::operator_norm1_up(A));
+
+  // ---- Z0: columns of I − A DF on the finite directions, plus their spill (A = I there) ----
+  {
+    const MidRad C = arith::product(A, D);
+    const Eigen::VectorXd cols = arith::identity_defect_column_norms_up(C);
+    double z0 = 0;
+    for (int j = 0; j < n; ++j) z0 = std::max(z0, up_add(cols(j), spill(j)));
+    res.bounds.Z0 = z0;
+  }
+
+  // ---- Z1: tail directions u = T_k, k ≥ N (docs/method.md (M3.6)-(M3.7)) ----
+  {
+    const JBounds jb = j_tail_bounds(N);
+    const auto pieces = pieces_of(md, Dbar);
+    MatD w = MatD::Zero(n, 1);
+    for (int i = 0; i < ns; ++i) {
+      double s = 0;
+      for (int d = 0; d < 3; ++d)
+        s = up_add(s, up_mul(arith::mag_up(md.rows[i].coef[d]), up_add(jb.band[3 - d], jb.low[3 - d])));
+      w(i, 0) = s;
+    }
+    double tail = 0;
+    for (const Piece& p : pieces) {
+      const int G = static_cast<int>(p.g_abs.size());
+      std::vector<double> suffix(G + 1, 0.0);  // suffix[a] = max_{b ≥ a} |g_b|
+      for (int a = G - 1; a >= 0; --a) suffix[a] = std::max(suffix[a + 1], p.g_abs[a]);
+      for (int j = 0; j < N; ++j) {
+        const int from = std::max(0, N - p.m - j);
+        const double band = from < G ? suffix[from] : 0.0;
+        double local = 0;
+        for (int a = std::max(0, j - p.m); a <= std::min(G - 1, j + p.m); ++a) local = std::max(local, p.g_abs[a]);
+        const double wj = up_mul(p.c_abs, up_add(up_mul(jb.band[p.m], band), up_mul(jb.low[p.m], local)));
+        w(ns + j, 0) = up_add(w(ns + j, 0), wj);
+      }
+      tail = up_add(tail, up_mul(up_mul(p.c_abs, sum_up(p.g_abs)), up_add(jb.band[p.m], jb.low[p.m])));
+    }
+    const MatD Aw = arith::abs_product_up(A, w);
+    double z1 = tail;
+    for (int i = 0; i < n; ++i) z1 = up_add(z1, Aw(i, 0));
+    res.bounds.Z1 = z1;
+  }
+
+  // ---- Z2: ‖A‖ Σ_quad 2|c| λ_{d1} λ_{d2} ----
+  const LiftNorms ln = lift_norms(md);
+  {
+    double z2 = 0;
+    for (const auto& t : md.quad)
+      z2 = up_add(z2, up_mul(up_mul(2.0, arith::mag_up(t.coef)), up_mul(ln.l1[t.d1], ln.l1[t.d2])));
+    res.bounds.Z2 = up_mul(res.bounds.A_norm, z2);
+  }
+  res.sup_lift = ln.sup;
+
+  // ---- Y0: ‖A F(x̄)‖ in the candidate's own arithmetic (MPFR when the candidate is) ----
+  {
+    const auto F = model::residual(m, xbar);
+    std::vector<I> top(n, I(0));
+    for (int i = 0; i < ns; ++i) top[i] = F.rows[i];
+    double bottom = 0;
+    for (int k = 0; k < static_cast<int>(F.fun.size()); ++k) {
+      if (k < N)
+        top[ns + k] = F.fun[k];
+      else
+        bottom = up_add(bottom, arith::mag_up(F.fun[k]));
+    }
+    res.bounds.Y0 = up_add(apply_norm(A, top), bottom);
+  }
+
+  // ---- radii polynomial (M3.2) ----
+  const NKBounds& b = res.bounds;
+  const Id gap = Id(1) - Id(b.Z());
+  if (!(gap.lower() > 0)) {
+    res.failure = "Z = max(Z0, Z1) = " + fmt(b.Z()) + " must be < 1 (short by " + fmt(b.Z() - 1) +
+                  "); Z0 = " + fmt(b.Z0) + ", Z1 = " + fmt(b.Z1) + (b.Z1 >= b.Z0 ? " (more modes help Z1)" : "");
+    return res;
+  }
+  const Id disc = gap * gap - Id(4) * Id(b.Z2) * Id(b.Y0);
+  if (!(disc.lower() > 0)) {
+    res.failure = "(1 - Z)^2 - 4 Z2 Y0 = " + fmt(disc.lower()) + " must be > 0; Y0 = " + fmt(b.Y0) +
+                  ", Z2 = " + fmt(b.Z2) + " (a more accurate candidate or more precision lowers Y0)";
+    return res;
+  }
+  const Id root = sqrt(Id(disc.lower()));
+  const Id rminus = Id(2) * Id(b.Y0) / (Id(gap.lower()) + Id(root.lower()));
+  double r_exist = R::mul_up(rminus.upper(), 1.0 + 0x1p-20);
+  if (r_exist == 0) r_exist = std::numeric_limits<double>::denorm_min();
+  const Id p = Id(b.Z2) * Id(r_exist) * Id(r_exist) - gap * Id(r_exist) + Id(b.Y0);
+  if (!(p.upper() < 0)) {
+    res.failure = "p(r) = Z2 r^2 - (1 - Z) r + Y0 < 0 could not be confirmed at r = " + fmt(r_exist);
+    return res;
+  }
+  res.existence_radius = r_exist;
+  res.uniqueness_radius = b.Z2 == 0 ? std::numeric_limits<double>::infinity()
+                                    : ((Id(gap.lower()) + Id(root.lower())) / (Id(2) * Id(b.Z2))).lower();
+  res.certified = true;
+
+  // ---- C³ bounds and values of the true solution ----
+  for (int d = 0; d < 4; ++d) res.c3_error[d] = up_mul(ln.sup[d], r_exist);
+  const auto Dt = model::lift(model::constants_of(m, xbar), model::u_of(m, xbar));
+  const I r_ball = I(-r_exist, r_exist);
+  auto widen = [&](const I& v, int d) { return v + I(-res.c3_error[d], res.c3_error[d]); };
+  res.fp0 = m.fixed_at_0[1] ? *m.fixed_at_0[1] : xbar[m.free_index(1)] + r_ball;
+  res.fppp0 = widen(cheb::value_at_0(Dt[3]), 3);
+  res.fpp1 = widen(cheb::value_at_1(Dt[2]), 2);
+  res.K = xbar[m.k_index()] + r_ball;
+  return res;
+}
+
+template NKResult<Id> nk_verify<Id>(const model::Model<Id>&, const std::vector<Id>&);
+template NKResult<Im> nk_verify<Im>(const model::Model<Im>&, const std::vector<Im>&);
+
+}  // namespace porecert::proof

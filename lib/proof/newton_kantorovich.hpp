@@ -1,0 +1,51 @@
+// Newton–Kantorovich (radii-polynomial) verification of one solution of a model (docs/method.md §M3).
+// Space X: x = (scalars, u) with ‖x‖ = Σ|scalars| + Σ_k |u_k| (ℓ¹ of the Chebyshev
+// coefficients of u = f'''). T(x) = x − A F(x), A = [A_N (approximate inverse of the
+// finite part of DF(x̄)) ⊕ identity on modes ≥ N]. With
+//   Y₀ ≥ ‖A F(x̄)‖, Z ≥ ‖I − A DF(x̄)‖ = max(Z₀ finite columns, Z₁ tail columns),
+//   Z₂ ≥ ‖A‖ sup ‖D²F[b,h]‖ (F is quadratic, so Z₂ is global),                       (M3.1)
+// p(r) = Z₂ r² − (1 − Z) r + Y₀ < 0 proves a unique zero of F in the ball B(x̄, r) for every r
+// in (r₋, r₊), hence existence within r₋ and uniqueness in the open ball of radius r₊.   (M3.2)
+#pragma once
+#include <array>
+#include <limits>
+#include <string>
+#include <vector>
+
+#include "arith/interval.hpp"
+#include "model/model.hpp"
+
+namespace porecert::proof {
+
+struct NKBounds {
+  double Y0 = 0, Z0 = 0, Z1 = 0, Z2 = 0, A_norm = 0;  // all rounded up
+  double Z() const { return Z0 > Z1 ? Z0 : Z1; }
+};
+
+template <arith::Interval I>
+struct NKResult {
+  bool certified = false;
+  std::string failure;      // the inequality that failed and by how much (empty if certified)
+  NKBounds bounds;
+  double existence_radius = 0;   // r₋ rounded up (ball in X)
+  double uniqueness_radius = 0;  // r₊ rounded down; +inf when Z₂ = 0
+  std::array<double, 4> c3_error{};  // sup|f^{(k)} − f̄^{(k)}| ≤ c3_error[k], k = 0..3, rounded up
+  // Enclosures of the true solution's values (valid only when certified).
+  I fp0, fppp0, fpp1, K;
+  int modes = 0;
+  std::array<double, 4> sup_lift{};  // sup-norm of D^d of a unit vector of X (for c3_error)
+};
+
+// Encloses everything stated in NKResult for the model m (coefficients may be intervals:
+// the proof then holds for every parameter inside) about the candidate xbar (layout of
+// model::Model). Loose when the candidate is poor (Y₀ large) or modes are too few (Z₁
+// near 1): then certified = false with the reason. Never throws on mathematical failure;
+// throws std::invalid_argument on a malformed model or fewer than 8 modes.
+template <arith::Interval I>
+NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar);
+
+// Upper bound of the tail part of Z₁ that does not depend on A: Σ |c| ‖g‖ ‖J^m T_k‖ for k ≥ N.
+// Used to pick N before the expensive steps.
+double tail_estimate(const model::Model<arith::Id>& m, const std::vector<arith::Id>& xbar, long N);
+
+}  // namespace porecert::proof

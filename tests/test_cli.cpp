@@ -1,0 +1,113 @@
+// The command line: exit codes, messages naming option, value and rule; nothing lost on bad input.
+#include <doctest/doctest.h>
+
+#include <cstdio>
+#include <cstdlib>
+#include <fstream>
+#include <sstream>
+#include <string>
+
+namespace {
+struct Run {
+  int rc;
+  std::string out;
+};
+Run porecert(const std::string& args) {
+  const std::string cmd = std::string(PORECERT_BINARY) + " " + args + " 2>&1";
+  FILE* p = popen(cmd.c_str(), "r");
+  std::string out;
+  char buf[4096];
+  while (std::fgets(buf, sizeof buf, p)) out += buf;
+  const int st = pclose(p);
+  return {WEXITSTATUS(st), out};
+}
+std::string slurp(const std::string& path) {
+  std::ifstream in(path);
+  std::stringstream ss;
+  ss << in.rdbuf();
+  return ss.str();
+}
+const std::string tmp = "/tmp/porecert-test-cli";
+}  // namespace
+
+TEST_CASE("verify certifies the demo case and recheck confirms it") {
+  std::system(("mkdir -p " + tmp).c_str());
+  const auto r = porecert("verify " PORECERT_SOURCE_DIR "/cases/membrane-module.toml --json " + tmp + "/demo.json");
+  CHECK(r.rc == 0);
+  CHECK(r.out.find("CERTIFIED") != std::string::npos);
+  const std::string cert = slurp(tmp + "/demo.json");
+  CHECK(cert.find("\"status\": \"certified\"") != std::string::npos);
+  const auto rc = porecert("recheck " + tmp + "/demo.json");
+  CHECK(rc.rc == 0);
+  CHECK(rc.out.find("CONFIRMED") != std::string::npos);
+}
+
+TEST_CASE("negative R works in both spellings") {
+  CHECK(porecert("verify --R=-10").rc == 0);
+  CHECK(porecert("verify --R -10").rc == 0);
+}
+
+TEST_CASE("bad input: exit 2, message names option, value and rule") {
+  auto r = porecert("verify --R=abc");
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("--R") != std::string::npos);
+  CHECK(r.out.find("abc") != std::string::npos);
+  r = porecert("verify --R=nan");
+  CHECK(r.rc == 2);
+  r = porecert("verify --R=3e5");
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("range") != std::string::npos);
+  r = porecert("verify --R=2:1");
+  CHECK(r.rc == 2);
+  r = porecert("verify --R=1 --modes 3");
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("--modes") != std::string::npos);
+}
+
+TEST_CASE("malformed case file and truncated certificate: exit 2, nothing already written is lost") {
+  std::system(("mkdir -p " + tmp).c_str());
+  {
+    std::ofstream f(tmp + "/bad.toml");
+    f << "[flow]\nreynolds = 12.5\n";
+  }
+  auto r = porecert("verify " + tmp + "/bad.toml");
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("flow.reynolds") != std::string::npos);
+  {
+    std::ofstream f(tmp + "/broken.toml");
+    f << "[flow\nreynolds = \"1\"\n";
+  }
+  CHECK(porecert("verify " + tmp + "/broken.toml").rc == 2);
+  // A good certificate, then a truncated copy: recheck refuses the copy; the original is untouched.
+  REQUIRE(porecert("verify --R=2 --json " + tmp + "/good.json").rc == 0);
+  const std::string good = slurp(tmp + "/good.json");
+  {
+    std::ofstream f(tmp + "/trunc.json");
+    f << good.substr(0, good.size() / 2);
+  }
+  r = porecert("recheck " + tmp + "/trunc.json");
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("truncated") != std::string::npos);
+  // A failing run must not clobber an existing certificate at the target path.
+  r = porecert("verify --R=abc --json " + tmp + "/good.json");
+  CHECK(r.rc == 2);
+  CHECK(slurp(tmp + "/good.json") == good);
+}
+
+TEST_CASE("recheck rejects a tampered certificate") {
+  std::system(("mkdir -p " + tmp).c_str());
+  REQUIRE(porecert("verify --R=3 --json " + tmp + "/t.json").rc == 0);
+  std::string c = slurp(tmp + "/t.json");
+  // Narrow the stated K enclosure to a wrong point: the re-proof cannot be contained in it.
+  const auto k = c.find("\"K\": [");
+  REQUIRE(k != std::string::npos);
+  const auto end = c.find(']', k);
+  c.replace(k, end - k + 1, "\"K\": [\"1.0\", \"1.0\"]");
+  {
+    std::ofstream f(tmp + "/t2.json");
+    f << c;
+  }
+  const auto r = porecert("recheck " + tmp + "/t2.json");
+  CHECK(r.rc == 1);
+  CHECK(r.out.find("REJECTED") != std::string::npos);
+}

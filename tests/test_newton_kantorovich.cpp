@@ -1,0 +1,107 @@
+// The one-solution verifier against sources outside the project.
+#include <doctest/doctest.h>
+
+#include "candidate/galerkin_newton.hpp"
+#include "model/berman.hpp"
+#include "proof/certify.hpp"
+#include "proof/newton_kantorovich.hpp"
+
+using namespace porecert;
+using arith::Id;
+
+namespace {
+proof::CertifyOutcome run(const std::string& R) {
+  proof::CertifyRequest q;
+  q.R_lo = q.R_hi = R;
+  return proof::certify_berman(q);
+}
+Id enc(const proof::Enclosure& e) { return Id(e.lo_d, e.hi_d); }
+}  // namespace
+
+TEST_CASE("R = 0: plane Poiseuille f = (3η − η³)/2, K = −3 exactly, inside the enclosures") {
+  const auto o = run("0");
+  REQUIRE(o.certified);
+  CHECK(boost::numeric::in(1.5, enc(o.fp0)));
+  CHECK(boost::numeric::in(-3.0, enc(o.K)));
+  CHECK(boost::numeric::in(-3.0, enc(o.fpp1)));
+  CHECK(boost::numeric::in(-3.0, enc(o.fppp0)));
+  CHECK(o.existence_radius < 1e-13);
+  CHECK(std::isinf(o.uniqueness_radius));  // linear problem: Z2 = 0
+}
+
+TEST_CASE("small R agrees with Berman's 1953 series up to a stated O(R^2) bound") {
+  // Berman 1953 (J. Appl. Phys. 24:1232), series re-derived in method.md: the O(R²) remainder
+  // is bounded here by 0.05 R² (the largest true coefficient, of K, is about 0.017) and far below R/140.
+  for (const char* Rs : {"0.001", "0.01"}) {
+    const double R = std::atof(Rs);
+    const auto o = run(Rs);
+    REQUIRE(o.certified);
+    const double tol = 0.05 * R * R;
+    CHECK(std::fabs(o.K.lo_d - (-3 + 81.0 / 35 * R)) < tol);
+    CHECK(std::fabs(o.fpp1.lo_d - (-3 - 3.0 / 35 * R)) < tol);
+    CHECK(std::fabs(o.fp0.lo_d - (1.5 - R / 140)) < tol);
+    CHECK(std::fabs(o.fppp0.lo_d - (-3 + 9.0 / 140 * R)) < tol);
+    // ...and the first-order term is really there (the solution is not the R = 0 profile).
+    CHECK(std::fabs(o.K.lo_d + 3) > 2 * R);
+  }
+}
+
+TEST_CASE("an interval of R gives one certificate that contains the point certificates") {
+  proof::CertifyRequest q;
+  q.R_lo = "0.9999";
+  q.R_hi = "1.0001";
+  const auto wide = proof::certify_berman(q);
+  REQUIRE(wide.certified);
+  for (const char* Rs : {"0.9999", "1", "1.0001"}) {
+    const auto p = run(Rs);
+    REQUIRE(p.certified);
+    CHECK(boost::numeric::subset(enc(p.K), enc(wide.K)));
+    CHECK(boost::numeric::subset(enc(p.fpp1), enc(wide.fpp1)));
+  }
+}
+
+TEST_CASE("negative tests: wrong-R candidate, truncated candidate, tampered residual are never falsely certified") {
+  const Id R = arith::from_decimal<Id>("5");
+  const auto good = run("5");
+  REQUIRE(good.certified);
+  auto make = [](double r) { return model::berman<double>(r); };
+  // Candidate for R = 5.5 checked at R = 5: must fail, or certify an enclosure containing the true value.
+  auto other = candidate::continuation(make, candidate::poiseuille(make(0), 24), 0, 5.5, 400);
+  REQUIRE(other.converged);
+  std::vector<Id> xo(other.x.begin(), other.x.end());
+  const auto r1 = proof::nk_verify(model::berman(R), xo);
+  if (r1.certified) CHECK(boost::numeric::overlap(r1.K, enc(good.K)));
+  CHECK_FALSE(r1.certified);
+  // Truncated candidate: keep 10 modes only.
+  auto right = candidate::continuation(make, candidate::poiseuille(make(0), 24), 0, 5.0, 400);
+  std::vector<Id> xt(right.x.begin(), right.x.begin() + 2 + 10);
+  const auto r2 = proof::nk_verify(model::berman(R), xt);
+  if (r2.certified) CHECK(boost::numeric::overlap(r2.K, enc(good.K)));
+  // Tampered: K shifted by 1e-6.
+  std::vector<Id> xk(right.x.begin(), right.x.end());
+  xk[1] = xk[1] + Id(1e-6);
+  const auto r3 = proof::nk_verify(model::berman(R), xk);
+  if (r3.certified) {
+    CHECK(boost::numeric::overlap(r3.K, enc(good.K)));
+    CHECK(r3.existence_radius >= 1e-6 * 0.5);
+  }
+}
+
+TEST_CASE("injection trend (Taylor 1956, from memory): f'(0) -> pi/2, f''(1) -> -pi^2/4 as R -> -inf") {
+  const auto o = run("-200");
+  REQUIRE(o.certified);
+  // Loose, trend only: the O(1/|R|) corrections are not known to us with constants.
+  CHECK(std::fabs(o.fp0.lo_d - M_PI / 2) < 0.01);
+  CHECK(std::fabs(o.fpp1.lo_d + M_PI * M_PI / 4) < 0.05);
+}
+
+TEST_CASE("a failed proof names the inequality and the margin") {
+  proof::CertifyRequest q;
+  q.R_lo = q.R_hi = "10";
+  q.modes = 12;  // too few for the tail: Z1 > 1
+  q.max_modes = 12;
+  q.precision_bits = 53;
+  const auto o = proof::certify_berman(q);
+  CHECK_FALSE(o.certified);
+  CHECK(o.failure.find("must be < 1") != std::string::npos);
+}

@@ -1,0 +1,160 @@
+// porecert verify / porecert recheck: certify one solution, or re-check a stored certificate.
+#include <cstdio>
+#include <iostream>
+
+#include "certificate/certificate.hpp"
+#include "commands.hpp"
+#include "proof/certify.hpp"
+
+namespace porecert::cli {
+
+namespace {
+
+struct VerifyOptions {
+  std::string case_file, R, branch, start, json, method = "newton";
+  int precision = 0, modes = 0;
+};
+
+std::pair<double, double> parse_start(const std::string& s) {
+  const auto comma = s.find(',');
+  if (comma == std::string::npos) throw input_error("--start: '" + s + "' must be two numbers a,b (f'(0), f'''(0))");
+  try {
+    std::size_t p1 = 0, p2 = 0;
+    const std::string a = s.substr(0, comma), b = s.substr(comma + 1);
+    const double x = std::stod(a, &p1), y = std::stod(b, &p2);
+    if (p1 != a.size() || p2 != b.size() || !std::isfinite(x) || !std::isfinite(y)) throw std::invalid_argument(s);
+    return {x, y};
+  } catch (const std::exception&) {
+    throw input_error("--start: '" + s + "' must be two finite numbers a,b (f'(0), f'''(0))");
+  }
+}
+
+void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, const std::string& R_hi,
+                   const std::string& branch) {
+  std::printf("porecert verify: Berman half-channel, R = %s%s%s, branch %s\n", R_lo.c_str(),
+              R_lo == R_hi ? "" : " .. ", R_lo == R_hi ? "" : R_hi.c_str(), branch.empty() ? "(unlabelled)" : branch.c_str());
+  std::printf("  candidate: %d Chebyshev modes, %s\n", o.modes,
+              o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str());
+  std::printf("  bounds:    Y0 = %.3g  Z0 = %.3g  Z1 = %.3g  Z2 = %.3g\n", o.Y0, o.Z0, o.Z1, o.Z2);
+  if (!o.certified) {
+    std::printf("  NOT CERTIFIED: %s\n", o.failure.c_str());
+    for (const auto& l : o.log) std::printf("    %s\n", l.c_str());
+    return;
+  }
+  std::printf("  CERTIFIED: a true solution lies within %.3g of the candidate and is the only one within %.3g\n",
+              o.existence_radius, o.uniqueness_radius);
+  std::printf("             (l1 norm of (f'(0), K, Chebyshev coefficients of f'''))\n");
+  std::printf("  sup|f^(k) - candidate^(k)| <= %.3g for k = 0..3\n", o.c3_error[3]);
+  std::printf("  f'(0)   in [%s, %s]\n", o.fp0.lo.c_str(), o.fp0.hi.c_str());
+  std::printf("  f'''(0) in [%s, %s]\n", o.fppp0.lo.c_str(), o.fppp0.hi.c_str());
+  std::printf("  f''(1)  in [%s, %s]   (wall shear)\n", o.fpp1.lo.c_str(), o.fpp1.hi.c_str());
+  std::printf("  K       in [%s, %s]   (axial pressure constant)\n", o.K.lo.c_str(), o.K.hi.c_str());
+  std::printf("  time %.2f s. %s\n", o.seconds, certificate::kCaution);
+}
+
+int run_verify(const VerifyOptions& v) {
+  proof::CertifyRequest req;
+  certificate::Problem prob;
+  std::string json_path = v.json;
+  if (!v.case_file.empty()) {
+    const auto c = model::read_case_file(v.case_file);
+    if (c.R) std::tie(req.R_lo, req.R_hi) = *c.R;
+    if (c.branch) req.branch = *c.branch;
+    if (c.start) req.start = c.start;
+    if (c.modes) req.modes = *c.modes;
+    if (c.precision_bits) req.precision_bits = *c.precision_bits;
+    if (c.certificate && json_path.empty()) json_path = *c.certificate;
+    prob.scenario = c.title;
+  }
+  if (!v.R.empty()) std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", v.R);
+  if (req.R_lo.empty()) throw input_error("--R: missing (give --R=VALUE or --R=LO:HI, or a case file with flow.reynolds)");
+  if (!v.branch.empty()) req.branch = v.branch;
+  if (!v.start.empty()) {
+    req.start = parse_start(v.start);
+    if (v.branch.empty()) req.branch = "";
+  }
+  if (v.precision) req.precision_bits = v.precision;
+  if (v.modes) req.modes = v.modes;
+  if (req.branch != "I" && !req.branch.empty())
+    throw input_error("--branch: '" + req.branch + "' is not available in this version (rule: I, or give --start a,b)");
+  if (req.branch.empty() && !req.start)
+    throw input_error("--start: needed when no branch is named (rule: --branch I or --start a,b)");
+  if (req.precision_bits != 0 && (req.precision_bits < 53 || req.precision_bits > 4096))
+    throw input_error("--precision: " + std::to_string(req.precision_bits) + " is outside 53..4096 bits");
+  if (req.modes != 0 && (req.modes < 8 || req.modes > 4000))
+    throw input_error("--modes: " + std::to_string(req.modes) + " is outside 8..4000");
+  if (v.method != "newton")
+    throw input_error("--method: '" + v.method + "' is not available here (rule: newton)");
+  prob.R_lo = req.R_lo;
+  prob.R_hi = req.R_hi;
+  prob.branch = req.start ? "" : req.branch;
+
+  const proof::CertifyOutcome o = proof::certify_berman(req);
+  const std::string text = certificate::to_json(prob, o).dump(2) + "\n";
+  if (json_path != "-") print_summary(o, req.R_lo, req.R_hi, prob.branch);
+  if (!json_path.empty()) {
+    certificate::write_atomic(json_path, text);
+    if (json_path != "-") std::printf("  certificate written to %s\n", json_path.c_str());
+  }
+  return o.certified ? 0 : 1;
+}
+
+}  // namespace
+
+Action register_verify(CLI::App& app) {
+  auto* sub = app.add_subcommand("verify", "Certify one solution of Berman's problem at R (a number or an interval)");
+  auto v = std::make_shared<VerifyOptions>();
+  sub->add_option("case", v->case_file, "Case file (TOML, docs/case-files.md)");
+  sub->add_option("--R", v->R, "Wall Reynolds number: VALUE or LO:HI (decimal; R > 0 suction)")->allow_extra_args(false);
+  sub->add_option("--branch", v->branch, "Solution branch: I (continuation from R = 0)");
+  sub->add_option("--start", v->start, "Shooting guess a,b for f'(0), f'''(0) (instead of --branch)");
+  sub->add_option("--precision", v->precision, "Interval precision in bits (53 = double; default: automatic)");
+  sub->add_option("--modes", v->modes, "Chebyshev modes (default: from coefficient decay and the tail bound)");
+  sub->add_option("--json", v->json, "Write the certificate (JSON) to PATH, or - for stdout");
+  sub->add_option("--method", v->method, "Proof method: newton (Newton-Kantorovich)");
+  return [v] { return run_verify(*v); };
+}
+
+Action register_recheck(CLI::App& app) {
+  auto* sub = app.add_subcommand("recheck", "Re-run the proof from a certificate's own content and compare");
+  auto path = std::make_shared<std::string>();
+  sub->add_option("certificate", *path, "Certificate file (JSON)")->required();
+  return [path] {
+    certificate::Stored s;
+    try {
+      s = certificate::parse(certificate::read_file(*path));
+    } catch (const certificate::format_error& e) {
+      throw input_error(e.what());
+    }
+    const auto o = proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+    std::printf("porecert recheck: %s (R = [%s, %s], %d modes, %d bits)\n", path->c_str(), s.problem.R_lo.c_str(),
+                s.problem.R_hi.c_str(), o.modes, o.precision_bits);
+    if (s.status != "certified") {
+      std::printf("  the certificate claims no proof (status \"%s\"); re-run: %s\n", s.status.c_str(),
+                  o.certified ? "certified" : o.failure.c_str());
+      return 1;
+    }
+    if (!o.certified) {
+      std::printf("  REJECTED: the proof does not go through: %s\n", o.failure.c_str());
+      return 1;
+    }
+    bool ok = o.existence_radius <= s.existence_radius;
+    if (!ok) std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius, s.existence_radius);
+    const proof::Enclosure* mine[4] = {&o.fp0, &o.fppp0, &o.fpp1, &o.K};
+    const char* names[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
+    for (int i = 0; i < 4; ++i) {
+      const arith::Id lo = arith::from_decimal<arith::Id>(s.values[i][0]);
+      const arith::Id hi = arith::from_decimal<arith::Id>(s.values[i][1]);
+      if (!(lo.upper() <= mine[i]->lo_d && mine[i]->hi_d <= hi.lower())) {
+        // The stated enclosure must contain the re-proved one.
+        std::printf("  REJECTED: stated %s = [%s, %s] does not contain the re-proved [%s, %s]\n", names[i],
+                    s.values[i][0].c_str(), s.values[i][1].c_str(), mine[i]->lo.c_str(), mine[i]->hi.c_str());
+        ok = false;
+      }
+    }
+    if (ok) std::printf("  CONFIRMED: proof re-run from the stored candidate; every stated enclosure holds (%.2f s)\n", o.seconds);
+    return ok ? 0 : 1;
+  };
+}
+
+}  // namespace porecert::cli

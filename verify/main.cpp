@@ -1,0 +1,39 @@
+#include <cstdio>
+#include <exception>
+#include <vector>
+
+#include "commands.hpp"
+
+int main(int argc, char** argv) {
+  CLI::App app{
+      "porecert: machine-checked certificates for Berman's porous-channel flow.\n"
+      "Certifies mathematics, not a plant: see README.md, 'Cautions'."};
+  app.require_subcommand(1);
+  std::vector<std::pair<CLI::App*, porecert::cli::Action>> actions;
+  auto add = [&](porecert::cli::Action (*reg)(CLI::App&)) {
+    const std::size_t before = app.get_subcommands({}).size();
+    porecert::cli::Action act = reg(app);
+    auto subs = app.get_subcommands({});
+    if (subs.size() > before) actions.emplace_back(subs.back(), std::move(act));
+  };
+  add(porecert::cli::register_verify);
+  // add(porecert::cli::register_greens);  (enabled when verify/cmd_greens.cpp lands)
+  add(porecert::cli::register_recheck);
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    const int rc = app.exit(e);
+    return rc == 0 ? 0 : 2;
+  }
+  try {
+    for (auto& [sub, act] : actions)
+      if (sub->parsed()) return act();
+  } catch (const porecert::cli::input_error& e) {
+    std::fprintf(stderr, "porecert: bad input: %s\n", e.what());
+    return 2;
+  } catch (const std::exception& e) {
+    std::fprintf(stderr, "porecert: internal error: %s\n", e.what());
+    return 3;
+  }
+  return 2;
+}
