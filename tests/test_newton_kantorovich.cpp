@@ -96,12 +96,13 @@ TEST_CASE("injection trend (Taylor 1956, from memory): f'(0) -> pi/2, f''(1) -> 
 }
 
 TEST_CASE("a failed proof names the inequality and the margin") {
-  proof::CertifyRequest q;
-  q.R_lo = q.R_hi = "10";
-  q.modes = 12;  // too few for the tail: Z1 > 1
-  q.max_modes = 12;
-  q.precision_bits = 53;
-  const auto o = proof::certify_berman(q);
-  CHECK_FALSE(o.certified);
-  CHECK(o.failure.find("must be < 1") != std::string::npos);
+  // 12 modes at R = 30 cannot resolve the wall layer: the proof must fail and say why.
+  auto make = [](double r) { return model::berman<double>(r); };
+  auto c = candidate::continuation(make, candidate::poiseuille(make(0), 24), 0, 30.0, 400);
+  REQUIRE(c.converged);
+  std::vector<Id> x(c.x.begin(), c.x.begin() + 2 + 12);
+  const auto r = proof::nk_verify(model::berman(arith::from_decimal<Id>("30")), x);
+  CHECK_FALSE(r.certified);
+  CHECK(r.failure.find("must be") != std::string::npos);
+  CHECK(r.failure.find("short by") != std::string::npos);
 }

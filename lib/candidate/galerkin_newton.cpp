@@ -54,7 +54,8 @@ NewtonReport newton(const Model<double>& m, Vec x, int max_iterations, double to
     for (double v : x) scale = std::max(scale, std::fabs(v));
     const double step = dx.lpNorm<Eigen::Infinity>();
     // Converged: a tiny step, or steps that stopped shrinking at the rounding-noise floor.
-    const bool noise_floor = it >= 2 && step > 0.5 * prev_step && step <= 1e-9 * scale;
+    const bool noise_floor =
+        it >= 2 && step > 0.5 * prev_step && (step <= 1e-9 * scale || rep.residual <= 1e-11 * scale);
     if (step <= tol * scale || noise_floor) {
       rep.residual = truncated_residual(m, x).lpNorm<Eigen::Infinity>();
       rep.converged = std::isfinite(rep.residual);

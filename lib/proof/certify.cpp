@@ -133,7 +133,7 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
 
   // 3. Proof, with remedies.
   int bits = req.precision_bits;
-  for (int attempt = 0; attempt < 8; ++attempt) {
+  for (int attempt = 0; attempt < 14; ++attempt) {
     const model::Model<double> mN = make(Rmid);
     if (bits == 0 || bits == 53) {
       out = prove_double(req.R_lo, req.R_hi, x);

@@ -28,6 +28,7 @@ struct Piece {
   double c_abs;
   std::vector<double> g_abs;  // |g_a| rounded up
   int m;
+  cheb::Series<Id> g;
 };
 
 std::vector<Piece> pieces_of(const model::Model<Id>& m, const std::array<cheb::Series<Id>, 4>& Dbar) {
@@ -37,11 +38,13 @@ std::vector<Piece> pieces_of(const model::Model<Id>& m, const std::array<cheb::S
     for (const Id& x : s) v.push_back(arith::mag_up(x));
     return v;
   };
-  for (const auto& t : m.lin)
-    out.push_back({arith::mag_up(t.coef), t.weight.empty() ? std::vector<double>{1.0} : absvec(t.weight), 3 - t.d});
+  for (const auto& t : m.lin) {
+    const cheb::Series<Id> g = t.weight.empty() ? cheb::Series<Id>{Id(1)} : t.weight;
+    out.push_back({arith::mag_up(t.coef), absvec(g), 3 - t.d, g});
+  }
   for (const auto& t : m.quad) {
-    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d1]), 3 - t.d2});
-    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d2]), 3 - t.d1});
+    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d1]), 3 - t.d2, Dbar[t.d1]});
+    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d2]), 3 - t.d1, Dbar[t.d2]});
   }
   return out;
 }
@@ -182,10 +185,38 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
     res.bounds.Z0 = z0;
   }
 
-  // ---- Z1: tail directions u = T_k, k ≥ N (docs/method.md (M3.6)-(M3.7)) ----
+  // ---- Z1: tail directions u = T_k, k ≥ N (docs/method.md (M3.6)-(M3.8)) ----
+  // k in [N, Kx): exact columns, so A_N sees the true finite-block part (keeps cancellation);
+  // k ≥ Kx: the band part no longer reaches the finite block, only the low part and the rows do.
   {
-    const JBounds jb = j_tail_bounds(N);
     const auto pieces = pieces_of(md, Dbar);
+    int glen = 1;
+    for (const Piece& p : pieces) glen = std::max(glen, static_cast<int>(p.g.size()));
+    const int Kx = N + glen + 4;
+    MidRad E{MatD::Zero(n, Kx - N), MatD::Zero(n, Kx - N)};
+    Eigen::VectorXd spillE = Eigen::VectorXd::Zero(Kx - N);
+    for (int k = N; k < Kx; ++k) {
+      const int c = k - N;
+      const auto col = model::derivative_column(md, Dbar, ns + k);
+      auto put = [&](int i, const Id& v) {
+        const double mid = arith::mid_double(v);
+        E.mid(i, c) = mid;
+        E.rad(i, c) = std::max(R::sub_up(v.upper(), mid), R::sub_up(mid, v.lower()));
+      };
+      for (int i = 0; i < ns; ++i) put(i, col.rows[i]);
+      for (int q = 0; q < static_cast<int>(col.fun.size()); ++q) {
+        if (q < N)
+          put(ns + q, col.fun[q]);
+        else
+          spillE(c) = up_add(spillE(c), arith::mag_up(q == k ? col.fun[q] - Id(1) : col.fun[q]));
+      }
+    }
+    double z1a = 0;
+    {
+      const Eigen::VectorXd cn = arith::column_norms_up(arith::product(A, E));
+      for (int c = 0; c < Kx - N; ++c) z1a = std::max(z1a, up_add(cn(c), spillE(c)));
+    }
+    const JBounds jb = j_tail_bounds(Kx);
     MatD w = MatD::Zero(n, 1);
     for (int i = 0; i < ns; ++i) {
       double s = 0;
@@ -193,25 +224,29 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
         s = up_add(s, up_mul(arith::mag_up(md.rows[i].coef[d]), up_add(jb.band[3 - d], jb.low[3 - d])));
       w(i, 0) = s;
     }
-    double tail = 0;
-    for (const Piece& p : pieces) {
-      const int G = static_cast<int>(p.g_abs.size());
-      std::vector<double> suffix(G + 1, 0.0);  // suffix[a] = max_{b ≥ a} |g_b|
-      for (int a = G - 1; a >= 0; --a) suffix[a] = std::max(suffix[a + 1], p.g_abs[a]);
-      for (int j = 0; j < N; ++j) {
-        const int from = std::max(0, N - p.m - j);
-        const double band = from < G ? suffix[from] : 0.0;
-        double local = 0;
-        for (int a = std::max(0, j - p.m); a <= std::min(G - 1, j + p.m); ++a) local = std::max(local, p.g_abs[a]);
-        const double wj = up_mul(p.c_abs, up_add(up_mul(jb.band[p.m], band), up_mul(jb.low[p.m], local)));
-        w(ns + j, 0) = up_add(w(ns + j, 0), wj);
-      }
-      tail = up_add(tail, up_mul(up_mul(p.c_abs, sum_up(p.g_abs)), up_add(jb.band[p.m], jb.low[p.m])));
+    double z1b = 0;
+    {
+      const MatD Aw = arith::abs_product_up(A, w);
+      for (int i = 0; i < n; ++i) z1b = up_add(z1b, Aw(i, 0));
     }
-    const MatD Aw = arith::abs_product_up(A, w);
-    double z1 = tail;
-    for (int i = 0; i < n; ++i) z1 = up_add(z1, Aw(i, 0));
-    res.bounds.Z1 = z1;
+    for (const Piece& p : pieces) {
+      z1b = up_add(z1b, up_mul(up_mul(p.c_abs, sum_up(p.g_abs)), up_add(jb.band[p.m], jb.low[p.m])));
+      double worst = 0;  // max_i ‖A_N Π(g T_i)‖ over the low modes i < m
+      for (int i = 0; i < p.m; ++i) {
+        cheb::Series<Id> t(i + 1, Id(0));
+        t[i] = Id(1);
+        const auto gt = model::product_sparse(p.g, t);
+        MidRad v{MatD::Zero(n, 1), MatD::Zero(n, 1)};
+        for (int q = 0; q < N && q < static_cast<int>(gt.size()); ++q) {
+          const double mid = arith::mid_double(gt[q]);
+          v.mid(ns + q, 0) = mid;
+          v.rad(ns + q, 0) = std::max(R::sub_up(gt[q].upper(), mid), R::sub_up(mid, gt[q].lower()));
+        }
+        worst = std::max(worst, arith::column_norms_up(arith::product(A, v))(0));
+      }
+      z1b = up_add(z1b, up_mul(up_mul(p.c_abs, jb.low[p.m]), worst));
+    }
+    res.bounds.Z1 = std::max(z1a, z1b);
   }
 
   // ---- Z2: ‖A‖ Σ_quad 2|c| λ_{d1} λ_{d2} ----
