@@ -4,6 +4,7 @@
 
 #include "certificate/certificate.hpp"
 #include "commands.hpp"
+#include "proof/branches.hpp"
 #include "proof/certify.hpp"
 
 namespace porecert::cli {
@@ -49,6 +50,11 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
   std::printf("  f'''(0) in [%s, %s]\n", o.fppp0.lo.c_str(), o.fppp0.hi.c_str());
   std::printf("  f''(1)  in [%s, %s]   (wall shear)\n", o.fpp1.lo.c_str(), o.fpp1.hi.c_str());
   std::printf("  K       in [%s, %s]   (axial pressure constant)\n", o.K.lo.c_str(), o.K.hi.c_str());
+  if (!o.structure.label.empty()) {
+    std::printf("  structure: type %s (%s)\n", o.structure.label.c_str(), o.structure.reason.c_str());
+    std::printf("  flow reversal (f' < 0 somewhere): %s%s\n", arith::to_string(o.structure.reversal),
+                o.structure.reversal == arith::Tri::yes ? (", on " + proof::spans_text(o.structure.reversal_where)).c_str() : "");
+  }
   std::printf("  time %.2f s. %s\n", o.seconds, certificate::kCaution);
 }
 
@@ -75,8 +81,8 @@ int run_verify(const VerifyOptions& v) {
   }
   if (v.precision) req.precision_bits = v.precision;
   if (v.modes) req.modes = v.modes;
-  if (req.branch != "I" && !req.branch.empty())
-    throw input_error("--branch: '" + req.branch + "' is not available in this version (rule: I, or give --start a,b)");
+  if (req.branch != "I" && req.branch != "II" && req.branch != "III" && !req.branch.empty())
+    throw input_error("--branch: '" + req.branch + "' is not a branch (rule: I, II or III, or give --start a,b)");
   if (req.branch.empty() && !req.start)
     throw input_error("--start: needed when no branch is named (rule: --branch I or --start a,b)");
   if (req.precision_bits != 0 && (req.precision_bits < 53 || req.precision_bits > 4096))
@@ -89,7 +95,25 @@ int run_verify(const VerifyOptions& v) {
   prob.R_hi = req.R_hi;
   prob.branch = req.start ? "" : req.branch;
 
-  const proof::CertifyOutcome o = proof::certify_berman(req);
+  proof::CertifyOutcome o;
+  if (req.branch == "II" || req.branch == "III") {
+    // Types II and III: the branch search, then the solution whose certified label matches.
+    const auto all = proof::certify_branches(req);
+    bool found = false;
+    for (const auto& s : all.solutions)
+      if (s.certified && s.structure.label == req.branch) {
+        o = s;
+        found = true;
+        break;
+      }
+    if (!found) {
+      o.failure = "no certified solution with the structure of type " + req.branch + " was found in the searched region (" +
+                  all.region + ")";
+      o.log = all.log;
+    }
+  } else {
+    o = proof::certify_berman(req);
+  }
   const std::string text = certificate::to_json(prob, o).dump(2) + "\n";
   if (json_path != "-") print_summary(o, req.R_lo, req.R_hi, prob.branch);
   if (!json_path.empty()) {
@@ -106,7 +130,7 @@ Action register_verify(CLI::App& app) {
   auto v = std::make_shared<VerifyOptions>();
   sub->add_option("case", v->case_file, "Case file (TOML, docs/case-files.md)");
   sub->add_option("--R", v->R, "Wall Reynolds number: VALUE or LO:HI (decimal; R > 0 suction)")->allow_extra_args(false);
-  sub->add_option("--branch", v->branch, "Solution branch: I (continuation from R = 0)");
+  sub->add_option("--branch", v->branch, "Solution branch: I (continuation from R = 0), II or III (branch search)");
   sub->add_option("--start", v->start, "Shooting guess a,b for f'(0), f'''(0) (instead of --branch)");
   sub->add_option("--precision", v->precision, "Interval precision in bits (53 = double; default: automatic)");
   sub->add_option("--modes", v->modes, "Chebyshev modes (default: from coefficient decay and the tail bound)");

@@ -19,6 +19,7 @@ int main(int argc, char** argv) {
   add(porecert::cli::register_verify);
   // add(porecert::cli::register_greens);  (enabled when verify/cmd_greens.cpp lands)
   add(porecert::cli::register_recheck);
+  add(porecert::cli::register_branches);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

@@ -35,7 +35,23 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
       {"parameters", {{"R", json::array({p.R_lo, p.R_hi})}}},
       {"R_meaning", "wall Reynolds number V h / nu; R > 0 suction, R < 0 injection; the certificate holds for every R in the interval"}};
   if (!p.scenario.empty()) j["scenario"] = p.scenario;
-  if (!p.branch.empty()) j["branch"] = p.branch;
+  if (!p.branch.empty()) j["branch_requested"] = p.branch;
+  if (o.certified && !o.structure.label.empty()) {
+    const auto spans = [](const std::vector<proof::Span>& v) {
+      json a = json::array();
+      for (const auto& s : v) a.push_back(json::array({down_str(s.first), up_str(s.second)}));
+      return a;
+    };
+    j["branch"] = o.structure.label;
+    j["structure"] = {{"label", o.structure.label},
+                      {"reason", o.structure.reason},
+                      {"flow_reversal", arith::to_string(o.structure.reversal)},
+                      {"reversal_where", spans(o.structure.reversal_where)},
+                      {"f_negative_where", spans(o.structure.f_negative)},
+                      {"meaning",
+                       "flow_reversal: 'yes' = f' < 0 certified on reversal_where; 'no' = f' > 0 certified on [0,1); "
+                       "'unsure' = neither could be certified"}};
+  }
   j["method"] = "newton-kantorovich";
   j["space"] = {
       {"description",

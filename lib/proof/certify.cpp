@@ -6,6 +6,7 @@
 
 #include "candidate/galerkin_newton.hpp"
 #include "model/berman.hpp"
+#include "model/operator.hpp"
 #include "proof/newton_kantorovich.hpp"
 
 namespace porecert::proof {
@@ -40,7 +41,22 @@ void take(CertifyOutcome& out, const NKResult<I>& r) {
     out.fppp0 = enclose(r.fppp0);
     out.fpp1 = enclose(r.fpp1);
     out.K = enclose(r.K);
+    out.fp0_id = arith::to_id(r.fp0);
+    out.K_id = arith::to_id(r.K);
+    out.fpp1_id = arith::to_id(r.fpp1);
+    out.fppp0_id = arith::to_id(r.fppp0);
   }
+}
+
+// Sign structure of the certified solution from the candidate's outward double hull.
+template <arith::Interval I>
+void add_structure(CertifyOutcome& out, const model::Model<I>& m, const std::vector<I>& x) {
+  if (!out.certified) return;
+  const model::Model<Id> md = model::convert<Id>(m, [](const I& v) { return arith::to_id(v); });
+  std::vector<Id> xd;
+  for (const I& v : x) xd.push_back(arith::to_id(v));
+  const auto D = model::lift(model::constants_of(md, xd), model::u_of(md, xd));
+  out.structure = classify(D, out.c3_error, out.fp0_id);
 }
 
 template <arith::Interval I>
@@ -60,8 +76,10 @@ CertifyOutcome prove_double(const std::string& lo, const std::string& hi, const 
   CertifyOutcome out;
   const Id R = read_R<Id>(lo, hi);
   std::vector<Id> xb(x.begin(), x.end());
-  const auto r = nk_verify(model::berman(R), xb);
+  const auto mdl = model::berman(R);
+  const auto r = nk_verify(mdl, xb);
   take(out, r);
+  add_structure(out, mdl, xb);
   out.precision_bits = 53;
   out.log.push_back("double, " + std::to_string(r.modes) + " modes: " + summary(r.bounds) +
                     (r.certified ? " -> certified" : " -> " + r.failure));
@@ -76,8 +94,10 @@ CertifyOutcome prove_mpfr(const std::string& lo, const std::string& hi, const st
   const Im R = read_R<Im>(lo, hi);
   std::vector<Im> xb;
   for (const Mpfr& v : x) xb.emplace_back(v, v);
-  const auto r = nk_verify(model::berman(R), xb);
+  const auto mdl = model::berman(R);
+  const auto r = nk_verify(mdl, xb);
   take(out, r);
+  add_structure(out, mdl, xb);
   out.precision_bits = bits;
   out.log.push_back("MPFR " + std::to_string(bits) + " bits, " + std::to_string(r.modes) + " modes: " +
                     summary(r.bounds) + (r.certified ? " -> certified" : " -> " + r.failure));
@@ -107,26 +127,41 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     cand = candidate::continuation(make, candidate::poiseuille(make(0.0), 24), 0.0, Rmid, req.max_modes, nullptr);
     log.push_back("candidate by continuation from R = 0 (type I): " + std::string(cand.converged ? "converged" : cand.note));
   }
-  CertifyOutcome out;
   if (!cand.converged) {
+    CertifyOutcome out;
     out.failure = "no candidate: " + cand.note;
     out.log = log;
     return out;
   }
+  CertifyOutcome out = certify_from(req, cand.x);
+  log.insert(log.end(), out.log.begin(), out.log.end());
+  out.log = log;
+  out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  return out;
+}
+
+CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>& x_candidate) {
+  const auto t0 = std::chrono::steady_clock::now();
+  const Id Rint = read_R<Id>(req.R_lo, req.R_hi);
+  const double Rmid = arith::mid_double(Rint);
+  auto make = [](double R) { return model::berman<double>(R); };
+  const model::Model<double> md = make(Rmid);
+  std::vector<std::string> log;
+  CertifyOutcome out;
   // 2. Modes: coefficient decay already reached; add modes until the tail estimate is small.
-  int N = std::max(candidate::modes_of(md, cand.x), req.modes);
+  int N = std::max(candidate::modes_of(md, x_candidate), req.modes);
   {
     const model::Model<Id> mi = model::berman(Rint);
     auto tail_at = [&](int n) {
       std::vector<Id> xi;
-      for (double v : candidate::with_modes(md, cand.x, n)) xi.push_back(Id(v));
+      for (double v : candidate::with_modes(md, x_candidate, n)) xi.push_back(Id(v));
       return tail_estimate(mi, xi, n);
     };
     if (req.modes == 0)
       while (tail_at(N) > 0.3 && N < req.max_modes) N = std::min(req.max_modes, N * 5 / 4 + 4);
   }
-  candidate::Vec x = candidate::with_modes(md, cand.x, N);
-  if (N > candidate::modes_of(md, cand.x)) {
+  candidate::Vec x = candidate::with_modes(md, x_candidate, N);
+  if (N > candidate::modes_of(md, x_candidate)) {
     const auto polished = candidate::newton(md, x, 4);
     if (polished.converged) x = polished.x;
   }

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "arith/interval.hpp"
+#include "proof/structure.hpp"
 
 namespace porecert::proof {
 
@@ -40,10 +41,14 @@ struct CertifyOutcome {
   // Candidate, exactly: hex strings of the unknown layout [f'(0), K, u_0 .. u_{N-1}].
   std::vector<std::string> candidate_hex;
   double seconds = 0;
+  Structure structure;  // certified sign structure and branch label (when certified)
+  arith::Id fp0_id, K_id, fpp1_id, fppp0_id;  // the value enclosures as double intervals
 };
 
 // Runs the whole certification for Berman's half-channel problem.
 CertifyOutcome certify_berman(const CertifyRequest& req);
+// The proof part only, about a given (non-rigorous) Galerkin candidate in the model's layout.
+CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>& x_candidate);
 
 // Re-runs the proof on a stored candidate (hex strings) at the stored precision: no solver.
 CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,

@@ -1,0 +1,24 @@
+// Every solution the search finds at R, each certified, labelled by its certified structure,
+// and proved pairwise distinct by disjoint enclosures (docs/branches.md).
+#pragma once
+#include <string>
+#include <vector>
+
+#include "proof/certify.hpp"
+
+namespace porecert::proof {
+
+struct BranchesOutcome {
+  std::vector<CertifyOutcome> solutions;  // certified or not, in the order found
+  std::vector<std::string> origins;       // how each candidate was found
+  bool pairwise_disjoint = false;         // true only when every certified pair is proved distinct
+  std::string region;                     // what was searched (no global claim beyond it)
+  std::vector<std::string> log;
+};
+
+BranchesOutcome certify_branches(const CertifyRequest& req);
+
+// Two certified solutions are different if some value enclosure is disjoint.
+arith::Tri distinct(const CertifyOutcome& a, const CertifyOutcome& b);
+
+}  // namespace porecert::proof

@@ -1,0 +1,103 @@
+#include "proof/structure.hpp"
+
+#include <algorithm>
+#include <cstdio>
+
+namespace porecert::proof {
+
+using arith::Id;
+using R = arith::rounded_nearest_outward;
+
+namespace {
+void push_merged(std::vector<Span>& v, Span s) {
+  if (!v.empty() && v.back().second >= s.first) {
+    v.back().second = std::max(v.back().second, s.second);
+  } else {
+    v.push_back(s);
+  }
+}
+bool covers(const std::vector<Span>& v, double a, double b) {
+  for (const Span& s : v)
+    if (s.first <= a && b <= s.second) return true;
+  return false;
+}
+}  // namespace
+
+SignCover sign_cover(const cheb::Series<Id>& s, double err, double a, double b, double tol) {
+  const double L = cheb::norm1_up(cheb::derivative(s));
+  SignCover out;
+  // Depth-first from the left so the output comes sorted.
+  std::vector<Span> stack{{a, b}};
+  std::size_t budget = 200000;
+  while (!stack.empty() && budget-- > 0) {
+    const Span box = stack.back();
+    stack.pop_back();
+    const double m = box.first + (box.second - box.first) / 2;
+    const double half = std::max(R::sub_up(m, box.first), R::sub_up(box.second, m));
+    const Id v = cheb::eval(s, Id(m)) + Id(-err, err) + Id(-R::mul_up(L, half), R::mul_up(L, half));
+    if (v.lower() > 0) {
+      push_merged(out.positive, box);
+    } else if (v.upper() < 0) {
+      push_merged(out.negative, box);
+    } else if (box.second - box.first <= tol) {
+      push_merged(out.unsure, box);
+    } else {
+      stack.push_back({m, box.second});
+      stack.push_back({box.first, m});
+    }
+  }
+  for (const Span& s2 : stack) push_merged(out.unsure, s2);  // budget exhausted: unsure, never dropped
+  return out;
+}
+
+std::string spans_text(const std::vector<Span>& v) {
+  std::string t;
+  char buf[80];
+  for (const Span& s : v) {
+    std::snprintf(buf, sizeof buf, "%s[%.6f, %.6f]", t.empty() ? "" : ", ", s.first, s.second);
+    t += buf;
+  }
+  return t.empty() ? "none" : t;
+}
+
+Structure classify(const std::array<cheb::Series<Id>, 4>& D, const std::array<double, 4>& e, const Id& fp0) {
+  Structure st;
+  const SignCover c0 = sign_cover(D[0], e[0], 0.0, 1.0);
+  const SignCover c1 = sign_cover(D[1], e[1], 0.0, 1.0);
+  const SignCover c2 = sign_cover(D[2], e[2], 0.0, 1.0);
+  const SignCover c3 = sign_cover(D[3], e[3], 0.0, 1.0);
+  st.reversal_where = c1.negative;
+  st.f_negative = c0.negative;
+  // f'' < 0 on (0, 1]: f''' < 0 on [0, eta1] (with f''(0) = 0 exactly) and f'' < 0 on [eta1, 1].
+  double eta1 = 1.0;
+  for (auto it = c2.negative.rbegin(); it != c2.negative.rend(); ++it)
+    if (it->second >= eta1 && it->first < eta1) eta1 = it->first;
+  const bool type1 = eta1 < 1.0 && (eta1 == 0.0 || covers(c3.negative, 0.0, eta1));
+  // Then f' > 0 on [0,1) follows from f'(1) = 0, which the true solution meets exactly.
+  if (!c1.negative.empty()) {
+    st.reversal = arith::Tri::yes;
+  } else if (type1) {
+    st.reversal = arith::Tri::no;
+  }
+  char buf[260];
+  if (type1) {
+    st.label = "I";
+    std::snprintf(buf, sizeof buf,
+                  "certified: f''' < 0 on [0, %.6f] and f'' < 0 on [%.6f, 1]; with f''(0) = 0 and f'(1) = 0 this gives "
+                  "f'' < 0 on (0,1] and f' > 0 on [0,1)",
+                  eta1, eta1);
+    st.reason = buf;
+  } else if (fp0.upper() < 0) {
+    st.label = "III";
+    st.reason = "certified: f'(0) < 0; f < 0 on " + spans_text(c0.negative);
+  } else if (fp0.lower() > 0 && !c2.positive.empty()) {
+    st.label = "II";
+    st.reason = "certified: f'(0) > 0 and f'' > 0 on " + spans_text(c2.positive);
+  } else {
+    st.label = "unclassified";
+    st.reason = "no structural property could be certified";
+  }
+  return st;
+}
+
+}  // namespace porecert::proof

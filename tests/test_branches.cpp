@@ -1,0 +1,66 @@
+// Branches I/II/III: found, certified, labelled by certified structure, proved distinct; checked
+// against the independent multiprecision shooting reference (tests/reference/berman_shooting.hpp).
+#include <doctest/doctest.h>
+
+#include "proof/branches.hpp"
+#include "reference/berman_shooting.hpp"
+
+using namespace porecert;
+
+namespace {
+bool meets(const std::string& v, const proof::Enclosure& e) {
+  const arith::Id r = arith::from_decimal<arith::Id>(v);
+  return e.lo_d - 1e-30 <= r.upper() && r.lower() <= e.hi_d + 1e-30;
+}
+const proof::CertifyOutcome* with_label(const proof::BranchesOutcome& b, const std::string& l) {
+  for (const auto& s : b.solutions)
+    if (s.certified && s.structure.label == l) return &s;
+  return nullptr;
+}
+}  // namespace
+
+TEST_CASE("R = 20: three certified, pairwise distinct solutions labelled I, II, III") {
+  proof::CertifyRequest q;
+  q.R_lo = q.R_hi = "20";
+  const auto b = proof::certify_branches(q);
+  REQUIRE(b.solutions.size() == 3);
+  CHECK(b.pairwise_disjoint);
+  const auto* s1 = with_label(b, "I");
+  const auto* s2 = with_label(b, "II");
+  const auto* s3 = with_label(b, "III");
+  REQUIRE(s1);
+  REQUIRE(s2);
+  REQUIRE(s3);
+  // Flow reversal: none on type I (certified f' > 0), certified on type III (f'(0) < 0).
+  CHECK(s1->structure.reversal == arith::Tri::no);
+  CHECK(s3->structure.reversal == arith::Tri::yes);
+  // Independent reference (Odeint + Multiprecision shooting, shares no code with the verifier).
+  const auto r1 = berman_type1_reference("20");
+  CHECK(meets(r1.fp0, s1->fp0));
+  CHECK(meets(r1.K, s1->K));
+  const auto r2 = berman_reference_from("20", s2->fp0.lo_d, s2->fppp0.lo_d);
+  CHECK(meets(r2.fp0, s2->fp0));
+  CHECK(meets(r2.fpp1, s2->fpp1));
+  const auto r3 = berman_reference_from("20", s3->fp0.lo_d, s3->fppp0.lo_d);
+  CHECK(meets(r3.fp0, s3->fp0));
+  CHECK(meets(r3.K, s3->K));
+}
+
+TEST_CASE("below the fold (R = 11; fold near 12.165, Robinson 1976 from memory) the search finds one solution") {
+  proof::CertifyRequest q;
+  q.R_lo = q.R_hi = "11";
+  const auto b = proof::certify_branches(q);
+  REQUIRE(b.solutions.size() == 1);
+  CHECK(b.solutions[0].certified);
+  CHECK(b.solutions[0].structure.label == "I");
+  CHECK(b.region.find("grid") != std::string::npos);  // the searched region is stated
+}
+
+TEST_CASE("sign cover never claims a sign it cannot prove") {
+  // g(η) = η − 1/2 with error 0.01: negative on [0, 0.49), positive on (0.51, 1], unsure between.
+  cheb::Series<arith::Id> g = {arith::Id(0), arith::Id(0.5)};  // (1/2)(2η − 1)
+  const auto c = proof::sign_cover(g, 0.01, 0.0, 1.0, 1e-4);
+  for (const auto& s : c.positive) CHECK(s.first > 0.51 - 1e-4);
+  for (const auto& s : c.negative) CHECK(s.second < 0.49 + 1e-4);
+  CHECK(!c.unsure.empty());
+}
