@@ -113,6 +113,15 @@ int run_verify(const VerifyOptions& v) {
     }
   } else {
     o = proof::certify_berman(req);
+    if (req.branch == "I" && o.certified && o.structure.label != "I") {
+      // Continuation can jump to a nearby branch where branches crowd: look for type I explicitly.
+      const auto all = proof::certify_branches(req);
+      for (const auto& s : all.solutions)
+        if (s.certified && s.structure.label == "I") {
+          o = s;
+          break;
+        }
+    }
   }
   const std::string text = certificate::to_json(prob, o).dump(2) + "\n";
   if (json_path != "-") print_summary(o, req.R_lo, req.R_hi, prob.branch);

@@ -23,18 +23,36 @@ bool covers(const std::vector<Span>& v, double a, double b) {
 }
 }  // namespace
 
-SignCover sign_cover(const cheb::Series<Id>& s, double err, double a, double b, double tol) {
-  const double L = cheb::norm1_up(cheb::derivative(s));
+SignCover sign_cover(const cheb::Series<Id>& s_full, double err, double a, double b, double tol) {
+  // Drop the coefficients whose ℓ¹ tail is negligible; the dropped norm joins the error (sup ≤ ℓ¹).
+  cheb::Series<Id> s = s_full;
+  {
+    const double total = cheb::norm1_up(s_full);
+    double tail = 0;
+    std::size_t keep = s.size();
+    while (keep > 8) {
+      const double t = R::add_up(tail, arith::mag_up(s[keep - 1]));
+      if (t > 1e-14 * std::max(1.0, total)) break;
+      tail = t;
+      --keep;
+    }
+    s.resize(keep);
+    err = R::add_up(err, tail);
+  }
+  const cheb::Series<Id> ds = cheb::derivative(s);
+  const double L = cheb::norm1_up(ds);
   SignCover out;
   // Depth-first from the left so the output comes sorted.
   std::vector<Span> stack{{a, b}};
-  std::size_t budget = 200000;
+  std::size_t budget = 400000;
   while (!stack.empty() && budget-- > 0) {
     const Span box = stack.back();
     stack.pop_back();
     const double m = box.first + (box.second - box.first) / 2;
     const double half = std::max(R::sub_up(m, box.first), R::sub_up(box.second, m));
-    const Id v = cheb::eval(s, Id(m)) + Id(-err, err) + Id(-R::mul_up(L, half), R::mul_up(L, half));
+    // Lipschitz bound on the box: the global ℓ¹ one, or the (loose but local) Clenshaw range of s'.
+    const double Lbox = std::min(L, arith::mag_up(cheb::eval(ds, Id(box.first, box.second))));
+    const Id v = cheb::eval(s, Id(m)) + Id(-err, err) + Id(-R::mul_up(Lbox, half), R::mul_up(Lbox, half));
     if (v.lower() > 0) {
       push_merged(out.positive, box);
     } else if (v.upper() < 0) {

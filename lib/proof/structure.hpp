@@ -19,8 +19,9 @@ struct SignCover {
 
 // Covers [a, b] (0 ≤ a < b ≤ 1) by boxes on which g = s + e, |e| ≤ err, is surely > 0, surely
 // < 0, or unsure (boxes narrower than tol). Each box's range is enclosed by the value at its
-// midpoint ± L·halfwidth with L ≥ ‖s'‖ (ℓ¹ of the derivative series): never by sampling.
-SignCover sign_cover(const cheb::Series<arith::Id>& s, double err, double a, double b, double tol = 1e-6);
+// midpoint ± L·halfwidth, L the smaller of ‖s'‖ (ℓ¹ of the derivative series) and the interval
+// Clenshaw range of s' over the box: never by sampling.
+SignCover sign_cover(const cheb::Series<arith::Id>& s, double err, double a, double b, double tol = 1e-8);
 
 struct Structure {
   std::string label;   // "I", "II", "III" or "unclassified"
