@@ -111,3 +111,20 @@ TEST_CASE("recheck rejects a tampered certificate") {
   CHECK(r.rc == 1);
   CHECK(r.out.find("REJECTED") != std::string::npos);
 }
+
+TEST_CASE("greens prints the four beta_k and the direct method certifies R = +-0.27") {
+  std::system(("mkdir -p " + tmp).c_str());
+  auto g = porecert("greens --json " + tmp + "/beta.json");
+  CHECK(g.rc == 0);
+  const std::string b = slurp(tmp + "/beta.json");
+  CHECK(b.find("\"beta\"") != std::string::npos);
+  // Reported for the direct method about the Stokes profile: |R| < 0.27 with a ball of about 0.07.
+  auto d = porecert("verify --R=0.27 --method direct --json " + tmp + "/d.json");
+  CHECK(d.rc == 0);
+  CHECK(slurp(tmp + "/d.json").find("\"status\": \"certified\"") != std::string::npos);
+  CHECK(porecert("verify --R=-0.27 --method direct").rc == 0);
+  auto far = porecert("verify --R=5 --method direct");
+  CHECK(far.rc == 1);
+  CHECK(far.out.find("NOT CERTIFIED") != std::string::npos);
+  CHECK(porecert("verify --R=1 --method banach").rc == 2);
+}

@@ -6,6 +6,7 @@
 #include "commands.hpp"
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
+#include "proof/direct.hpp"
 
 namespace porecert::cli {
 
@@ -58,6 +59,32 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
   std::printf("  time %.2f s. %s\n", o.seconds, certificate::kCaution);
 }
 
+// The direct Banach contraction about the R = 0 profile (lib/proof/direct.hpp, docs/method.md D1-D14).
+int run_direct(const proof::CertifyRequest& req, const std::string& json_path) {
+  const arith::Id R = boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
+  const proof::DirectResult r = proof::certify_direct(R);
+  nlohmann::json j = proof::to_json(r);
+  j["R"] = nlohmann::json::array({req.R_lo, req.R_hi});
+  j["caution"] = certificate::kCaution;
+  if (json_path != "-") {
+    std::printf("porecert verify --method direct: Berman half-channel, R = %s%s%s, about the R = 0 profile\n",
+                req.R_lo.c_str(), req.R_lo == req.R_hi ? "" : " .. ", req.R_lo == req.R_hi ? "" : req.R_hi.c_str());
+    for (const auto& q : j["inequalities"])
+      std::printf("  %-40s %s  lhs <= %s, rhs >= %s, margin >= %s\n", q.value("name", "").c_str(),
+                  q.value("holds", "") == "yes" ? "holds" : "FAILS", q["lhs"][1].get<std::string>().c_str(),
+                  q["rhs"][0].get<std::string>().c_str(), q["margin"][0].get<std::string>().c_str());
+    if (r.certified)
+      std::printf("  CERTIFIED: unique solution in the weighted C3 ball of radius %.6g about (3 eta - eta^3)/2 "
+                  "(unique up to radius %.6g)\n",
+                  r.radius, r.uniqueness_radius);
+    else
+      std::printf("  NOT CERTIFIED: %s\n", r.reason.c_str());
+    std::printf("  %s\n", certificate::kCaution);
+  }
+  if (!json_path.empty()) certificate::write_atomic(json_path, j.dump(2) + "\n");
+  return proof::direct_exit_code(r);
+}
+
 int run_verify(const VerifyOptions& v) {
   proof::CertifyRequest req;
   certificate::Problem prob;
@@ -89,8 +116,9 @@ int run_verify(const VerifyOptions& v) {
     throw input_error("--precision: " + std::to_string(req.precision_bits) + " is outside 53..4096 bits");
   if (req.modes != 0 && (req.modes < 8 || req.modes > 4000))
     throw input_error("--modes: " + std::to_string(req.modes) + " is outside 8..4000");
-  if (v.method != "newton")
-    throw input_error("--method: '" + v.method + "' is not available here (rule: newton)");
+  if (v.method != "newton" && v.method != "direct")
+    throw input_error("--method: '" + v.method + "' is not a method (rule: newton or direct)");
+  if (v.method == "direct") return run_direct(req, json_path);
   prob.R_lo = req.R_lo;
   prob.R_hi = req.R_hi;
   prob.branch = req.start ? "" : req.branch;
@@ -144,7 +172,7 @@ Action register_verify(CLI::App& app) {
   sub->add_option("--precision", v->precision, "Interval precision in bits (53 = double; default: automatic)");
   sub->add_option("--modes", v->modes, "Chebyshev modes (default: from coefficient decay and the tail bound)");
   sub->add_option("--json", v->json, "Write the certificate (JSON) to PATH, or - for stdout");
-  sub->add_option("--method", v->method, "Proof method: newton (Newton-Kantorovich)");
+  sub->add_option("--method", v->method, "Proof method: newton (Newton-Kantorovich about a candidate) or direct (contraction about the R = 0 profile)");
   return [v] { return run_verify(*v); };
 }
 

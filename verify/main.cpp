@@ -17,7 +17,7 @@ int main(int argc, char** argv) {
     if (subs.size() > before) actions.emplace_back(subs.back(), std::move(act));
   };
   add(porecert::cli::register_verify);
-  // add(porecert::cli::register_greens);  (enabled when verify/cmd_greens.cpp lands)
+  add(porecert::cli::register_greens);
   add(porecert::cli::register_recheck);
   add(porecert::cli::register_branches);
   try {
