@@ -99,7 +99,7 @@ TEST_CASE("recheck rejects a tampered certificate") {
   REQUIRE(porecert("verify --R=3 --json " + tmp + "/t.json").rc == 0);
   std::string c = slurp(tmp + "/t.json");
   // Narrow the stated K enclosure to a wrong point: the re-proof cannot be contained in it.
-  const auto k = c.find("\"K\": [");
+  const auto k = c.find("\"K\": [", c.find("\"values\""));
   REQUIRE(k != std::string::npos);
   const auto end = c.find(']', k);
   c.replace(k, end - k + 1, "\"K\": [\"1.0\", \"1.0\"]");

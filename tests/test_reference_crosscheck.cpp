@@ -10,7 +10,7 @@ using namespace porecert;
 
 TEST_CASE("reference shooting values lie inside the certified enclosures, R in [-50, 30]") {
   for (const char* Rs : {"-50", "-17.25", "-3", "0.5", "4.75", "12", "21.5", "30"}) {
-    CAPTURE(Rs);
+    CAPTURE(std::string(Rs));
     proof::CertifyRequest q;
     q.R_lo = q.R_hi = Rs;
     const auto o = proof::certify_berman(q);

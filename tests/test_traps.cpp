@@ -108,3 +108,13 @@ TEST_CASE("trap 10: the product kernel's a-priori error term is present") {
   CHECK(C.mid(0, 0) == 1.0);  // round-to-nearest loses 2^-106 ...
   CHECK(C.mid(0, 0) + C.rad(0, 0) > 1.0);  // ... the radius must cover it
 }
+
+TEST_CASE("past hard case: integers near 2^63 and large ratios convert outward") {
+  const Id big(std::numeric_limits<long>::max());
+  CHECK(static_cast<long double>(big.lower()) <= static_cast<long double>(std::numeric_limits<long>::max()));
+  CHECK(static_cast<long double>(big.upper()) >= static_cast<long double>(std::numeric_limits<long>::max()));
+  const long p = (1L << 53) + 1;  // not a double
+  const Id r = ratio<Id>(p, 1);
+  CHECK(r.lower() <= 9007199254740992.0);
+  CHECK(r.upper() >= 9007199254740994.0);
+}

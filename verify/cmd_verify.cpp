@@ -7,6 +7,7 @@
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
 #include "proof/direct.hpp"
+#include "proof/direct_candidate.hpp"
 
 namespace porecert::cli {
 
@@ -141,18 +142,23 @@ int run_verify(const VerifyOptions& v) {
     }
   } else {
     o = proof::certify_berman(req);
-    if (req.branch == "I" && o.certified && o.structure.label != "I") {
-      // Continuation can jump to a nearby branch where branches crowd: look for type I explicitly.
-      const auto all = proof::certify_branches(req);
-      for (const auto& s : all.solutions)
-        if (s.certified && s.structure.label == "I") {
-          o = s;
-          break;
-        }
+  }
+  nlohmann::json cert = certificate::to_json(prob, o);
+  std::string c3_line;
+  {  // C3-ball uniqueness: direct contraction about the Newton candidate (lib/proof/direct_candidate.hpp, D15-D25).
+    const arith::Id R = boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
+    if (o.certified && boost::numeric::abs(R).upper() <= 2) {
+      const auto u = proof::c3_uniqueness_from_newton(o, R);
+      cert["c3_uniqueness"] = proof::to_json(u);
+      c3_line = u.direct.certified ? "  C3 ball:   unique solution within weighted C3 radius " +
+                                         cert["c3_uniqueness"]["uniqueness_radius"].get<std::string>() +
+                                         " of the candidate (direct contraction, w = 115,30,5,1)"
+                                   : "  C3 ball:   not certified (" + std::string(u.direct.reason.substr(0, 80)) + "...)";
     }
   }
-  const std::string text = certificate::to_json(prob, o).dump(2) + "\n";
+  const std::string text = cert.dump(2) + "\n";
   if (json_path != "-") print_summary(o, req.R_lo, req.R_hi, prob.branch);
+  if (json_path != "-" && !c3_line.empty()) std::printf("%s\n", c3_line.c_str());
   if (!json_path.empty()) {
     certificate::write_atomic(json_path, text);
     if (json_path != "-") std::printf("  certificate written to %s\n", json_path.c_str());

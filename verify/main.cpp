@@ -20,6 +20,7 @@ int main(int argc, char** argv) {
   add(porecert::cli::register_greens);
   add(porecert::cli::register_recheck);
   add(porecert::cli::register_branches);
+  add(porecert::cli::register_fold);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

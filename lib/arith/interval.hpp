@@ -76,21 +76,22 @@ template <Interval I>
 I point(double d) {
   return I(d);
 }
-// Enclosure of p/q (tightest for the double implementation).
+// Enclosure of p/q (tightest for the double implementation when |p|, |q| ≤ 2^53; the integers
+// are converted outward, so the result encloses p/q for every p, q).
 template <Interval I>
 I ratio(long p, long q) {
-  return I(static_cast<double>(p)) / I(static_cast<double>(q));
+  return I(p) / I(q);
 }
 // Outward conversion to the double implementation (exact when the bounds are doubles).
 inline Id to_id(const Id& x) { return x; }
 inline Id to_id(const Im& x) { return make_unchecked<Id>(unchecked, lower_down(x), upper_up(x)); }
-// Exact conversion from a double interval.
+// Conversion from a double interval: exact at working precision >= 53 bits, outward below.
 template <Interval I>
 I from_id(const Id& x) {
   if constexpr (std::same_as<I, Id>) {
     return x;
   } else {
-    return I(Mpfr(x.lower()), Mpfr(x.upper()));
+    return I(x.lower(), x.upper());  // conv_down/conv_up: outward even below 53 bits
   }
 }
 // Enclosure of pi (tightest in double; at working precision for MPFR).

@@ -60,7 +60,8 @@ struct rounded_nearest_outward {
     return (b & 0x000FFFFFFFFFFFFFull) == 0 && ((b >> 52) & 0x7FF) != 0 && ((b >> 52) & 0x7FF) != 0x7FF;
   }
   static bool exact_mul(double x, double y, double p) {
-    return x == 0 || y == 0 || ((pow2(x) || pow2(y)) && std::fabs(p) >= DBL_MIN && std::isfinite(p));
+    // |p| > DBL_MIN, not >=: a subnormal exact product can round up to DBL_MIN.
+    return x == 0 || y == 0 || ((pow2(x) || pow2(y)) && std::fabs(p) > DBL_MIN && std::isfinite(p));
   }
   static double mul_down(double x, double y) {
     const double p = chk(x * y, "mul");
@@ -72,19 +73,20 @@ struct rounded_nearest_outward {
   }
   static double div_down(double x, double y) {
     const double q = chk(x / y, "div");
-    return (x == 0 || (pow2(y) && std::fabs(q) >= DBL_MIN && std::isfinite(q))) ? q : next_down(q);
+    return (x == 0 || (pow2(y) && std::fabs(q) > DBL_MIN && std::isfinite(q))) ? q : next_down(q);
   }
   static double div_up(double x, double y) {
     const double q = chk(x / y, "div");
-    return (x == 0 || (pow2(y) && std::fabs(q) >= DBL_MIN && std::isfinite(q))) ? q : next_up(q);
+    return (x == 0 || (pow2(y) && std::fabs(q) > DBL_MIN && std::isfinite(q))) ? q : next_up(q);
   }
   static double sqrt_down(double x) {
     const double r = chk(std::sqrt(x), "sqrt");
-    return std::fma(r, r, -x) == 0 ? r : next_down(r);  // fma is one rounding: 0 proves r*r == x
+    // fma is one rounding: 0 proves r*r == x once x >= 2^-970 (below, a nonzero r*r - x can underflow to 0).
+    return (x == 0 || x >= 0x1p-970) && std::fma(r, r, -x) == 0 ? r : next_down(r);
   }
   static double sqrt_up(double x) {
     const double r = chk(std::sqrt(x), "sqrt");
-    return std::fma(r, r, -x) == 0 ? r : next_up(r);
+    return (x == 0 || x >= 0x1p-970) && std::fma(r, r, -x) == 0 ? r : next_up(r);
   }
   static double median(double x, double y) { return chk(x * 0.5 + y * 0.5, "median"); }
   static double int_down(double x) { return std::floor(x); }
@@ -94,8 +96,10 @@ struct rounded_nearest_outward {
     if constexpr (std::is_same_v<U, double>) {
       return chk(v, "conversion");
     } else {
+      // Compare in long double (64-bit significand: exact for every integer type up to 64 bits),
+      // never by casting d back to U (2^63 does not fit in long).
       const double d = static_cast<double>(v);
-      return (static_cast<U>(d) <= v) ? d : next_down(d);
+      return (static_cast<long double>(d) <= static_cast<long double>(v)) ? d : next_down(d);
     }
   }
   template <class U>
@@ -104,7 +108,7 @@ struct rounded_nearest_outward {
       return chk(v, "conversion");
     } else {
       const double d = static_cast<double>(v);
-      return (static_cast<U>(d) >= v) ? d : next_up(d);
+      return (static_cast<long double>(d) >= static_cast<long double>(v)) ? d : next_up(d);
     }
   }
   // Used by boost::numeric::exp etc.: correctly rounded MPFR results.

@@ -6,6 +6,7 @@
 #include <cmath>
 #include <cstdint>
 #include <limits>
+#include <utility>
 
 #if defined(__FAST_MATH__)
 #error "porecert: -ffast-math breaks outward rounding (docs/enclosures.md, forbidden flags)"
@@ -30,6 +31,7 @@ inline double next_down(double x) noexcept { return -next_up(-x); }
 
 // Exact error of s = fl(a + b) (Knuth's TwoSum): a + b = s + e exactly when s is finite.
 inline double two_sum_error(double a, double b, double s) noexcept {
+  if (std::fabs(a) < std::fabs(b)) std::swap(a, b);  // else s - a can overflow for finite s (then NaN)
   const double bb = s - a;
   return (a - (s - bb)) + (b - bb);
 }

@@ -176,9 +176,24 @@ NewtonReport continuation(const std::function<Model<double>(double)>& make, Vec 
       for (std::size_t i = 0; i < x.size(); ++i) guess[i] = x[i] + t * (x[i] - x_prev[i]);
     }
     NewtonReport r = newton(m, guess, 12);
+    bool jumped = false;
+    if (r.converged && !x_prev.empty() && r.x.size() == guess.size()) {
+      // Branch guard: the corrector must stay small against the predicted step, else Newton may
+      // have jumped to a nearby branch (types I and II crowd together for large suction).
+      double pred = 0, corr = 0;
+      for (std::size_t i = 0; i < guess.size(); ++i) {
+        pred = std::max(pred, std::fabs(guess[i] - x[i]));
+        corr = std::max(corr, std::fabs(r.x[i] - guess[i]));
+      }
+      if (corr > 0.3 * pred + 1e-12) {
+        r.converged = false;
+        r.note = "corrector too large against the predictor (possible branch jump)";
+        jumped = true;
+      }
+    }
     if (r.converged && !decayed(m, r.x) && modes_of(m, r.x) < n_max)
       r = solve_with_decay(m, r.x, modes_of(m, r.x), n_max);
-    if (!r.converged && modes_of(m, x) < n_max) {  // under-resolved? retry with more modes
+    if (!r.converged && !jumped && modes_of(m, x) < n_max) {  // under-resolved? retry with more modes
       const int n_more = std::min(n_max, modes_of(m, x) * 3 / 2 + 8);
       Vec padded = with_modes(m, guess, n_more);
       NewtonReport r2 = newton(m, padded, 12);
@@ -206,7 +221,7 @@ NewtonReport continuation(const std::function<Model<double>(double)>& make, Vec 
     R = R_next;
     rep = r;
     if (r.iterations <= 5) step *= 1.6;
-    const double cap = std::max(2.0, 0.35 * std::fabs(R));  // keep relative steps moderate
+    const double cap = std::max(1.0, 0.15 * std::fabs(R));  // keep relative steps moderate
     if (std::fabs(step) > cap) step = std::copysign(cap, step);
   }
   rep.x = x;

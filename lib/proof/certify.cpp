@@ -7,6 +7,7 @@
 #include "candidate/galerkin_newton.hpp"
 #include "model/berman.hpp"
 #include "model/operator.hpp"
+#include "proof/branches.hpp"
 #include "proof/newton_kantorovich.hpp"
 
 namespace porecert::proof {
@@ -134,6 +135,17 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     return out;
   }
   CertifyOutcome out = certify_from(req, cand.x);
+  if (!req.start && req.branch == "I" && out.certified && out.structure.label != "I") {
+    // Continuation can jump to a nearby branch where branches crowd (types I and II for large
+    // suction): the certified structure says so; then look for type I with the branch search.
+    log.push_back("continuation ended on a solution of certified type " + out.structure.label +
+                  "; searching all branches for type I");
+    for (auto& s : certify_branches(req).solutions)
+      if (s.certified && s.structure.label == "I") {
+        out = std::move(s);
+        break;
+      }
+  }
   log.insert(log.end(), out.log.begin(), out.log.end());
   out.log = log;
   out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
