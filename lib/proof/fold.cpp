@@ -9,6 +9,7 @@
 
 #include "arith/midrad.hpp"
 #include "candidate/fold_candidate.hpp"
+#include "proof/radii.hpp"
 #include "proof/tail_bounds.hpp"
 
 namespace porecert::proof {
@@ -25,11 +26,7 @@ namespace {
 double up_add(double a, double b) { return Rnd::add_up(a, b); }
 double up_mul(double a, double b) { return Rnd::mul_up(a, b); }
 
-void put(MidRad& M, int i, int j, const Id& v) {
-  const double mid = arith::mid_double(v);
-  M.mid(i, j) = mid;
-  M.rad(i, j) = std::max(Rnd::sub_up(v.upper(), mid), Rnd::sub_up(mid, v.lower()));
-}
+void put(MidRad& M, int i, int j, const Id& v) { put_entry(M, i, j, v); }
 
 // One piece c · g · J^m T_k of (DF − I) T_k in equation block `block` (0: (F1), 1: (F4)); docs/fold.md (F10).
 struct Piece {
@@ -39,31 +36,7 @@ struct Piece {
   int m;
 };
 
-// ‖A_N F_top‖ for an interval vector (A treated as exact), as in nk_verify.
-double apply_norm(const MatD& A, const std::vector<Id>& F) {
-  const Eigen::Index n = A.rows();
-  MidRad f{MatD(n, 1), MatD(n, 1)};
-  for (Eigen::Index i = 0; i < n; ++i) put(f, static_cast<int>(i), 0, F[i]);
-  return arith::column_norms_up(arith::product(A, f))(0);
-}
-double apply_norm(const MatD& A, const std::vector<Im>& F) {
-  const Eigen::Index n = A.rows();
-  double s = 0;
-  for (Eigen::Index i = 0; i < n; ++i) {
-    Im acc(0);
-    for (Eigen::Index j = 0; j < n; ++j)
-      if (A(i, j) != 0) acc = acc + Im(arith::Mpfr(A(i, j))) * F[j];
-    s = up_add(s, arith::mag_up(acc));
-  }
-  return s;
-}
-
-std::string fmt(double v) {
-  std::ostringstream o;
-  o.precision(3);
-  o << v;
-  return o.str();
-}
+std::string fmt(double v) { return short_number(v); }
 
 // λ_d ≥ sup over unit vectors of one function part (g: a or a u_g mode; v: a u_v mode) of ‖D^d‖, d = 0..2.
 std::array<double, 3> lambdas() {
@@ -202,34 +175,18 @@ FoldResult<I> fold_verify(const std::vector<I>& xbar) {
         else
           bottom = up_add(bottom, arith::mag_up((*e[b])[q]));
       }
-    res.bounds.Y0 = up_add(apply_norm(A, top), bottom);
+    res.bounds.Y0 = up_add(apply_norm_up(A, top), bottom);
   }
 
-  // ---- radii polynomial p(r) = Z2 r² − (1 − Z) r + Y0 ----
-  const FoldBounds& b = res.bounds;
-  const Id gap = Id(1) - Id(b.Z());
-  if (!(gap.lower() > 0)) {
-    res.failure = "Z = max(Z0, Z1) = " + fmt(b.Z()) + " must be < 1 (short by " + fmt(b.Z() - 1) + "); Z0 = " +
-                  fmt(b.Z0) + ", Z1 = " + fmt(b.Z1);
+  // ---- radii polynomial p(r) = Z2 r² − (1 − Z) r + Y0 (docs/method.md (M3.2)) ----
+  const RadiiVerdict verdict = radii_polynomial(res.bounds.Y0, res.bounds.Z0, res.bounds.Z1, res.bounds.Z2);
+  if (!verdict.certified) {
+    res.failure = verdict.failure;
     return res;
   }
-  const Id disc = gap * gap - Id(4) * Id(b.Z2) * Id(b.Y0);
-  if (!(disc.lower() > 0)) {
-    res.failure = "(1 - Z)^2 - 4 Z2 Y0 = " + fmt(disc.lower()) + " must be > 0; Y0 = " + fmt(b.Y0) + ", Z2 = " +
-                  fmt(b.Z2);
-    return res;
-  }
-  const Id root = sqrt(Id(disc.lower()));
-  const Id rminus = Id(2) * Id(b.Y0) / (Id(gap.lower()) + Id(root.lower()));
-  double r = Rnd::mul_up(rminus.upper(), 1.0 + 0x1p-20);
-  if (r == 0) r = std::numeric_limits<double>::denorm_min();
-  const Id p = Id(b.Z2) * Id(r) * Id(r) - gap * Id(r) + Id(b.Y0);
-  if (!(p.upper() < 0)) {
-    res.failure = "p(r) = Z2 r^2 - (1 - Z) r + Y0 < 0 could not be confirmed at r = " + fmt(r);
-    return res;
-  }
+  const double r = verdict.existence_radius;
   res.existence_radius = r;
-  res.uniqueness_radius = ((Id(gap.lower()) + Id(root.lower())) / (Id(2) * Id(b.Z2))).lower();
+  res.uniqueness_radius = verdict.uniqueness_radius;
   res.certified = true;
 
   // ---- components of the zero: each within r (ℓ¹ ball); sup|δg^(d)| ≤ r for d ≤ 3 (docs/fold.md (F13)) ----

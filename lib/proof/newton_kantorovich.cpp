@@ -8,6 +8,7 @@
 
 #include "arith/midrad.hpp"
 #include "model/operator.hpp"
+#include "proof/radii.hpp"
 #include "proof/tail_bounds.hpp"
 
 namespace porecert::proof {
@@ -90,37 +91,6 @@ Id to_id(const I& x) {
   return arith::to_id(x);
 }
 
-// Y-part: ‖A_N F_top‖ for interval F_top (double A treated as exact).
-double apply_norm(const MatD& A, const std::vector<Id>& F) {
-  const Eigen::Index n = A.rows();
-  MidRad f{MatD(n, 1), MatD(n, 1)};
-  for (Eigen::Index i = 0; i < n; ++i) {
-    const double mid = arith::mid_double(F[i]);
-    f.mid(i, 0) = mid;
-    f.rad(i, 0) = std::max(R::sub_up(F[i].upper(), mid), R::sub_up(mid, F[i].lower()));
-  }
-  const MidRad y = arith::product(A, f);
-  return arith::column_norms_up(y)(0);
-}
-double apply_norm(const MatD& A, const std::vector<Im>& F) {
-  const Eigen::Index n = A.rows();
-  double s = 0;
-  for (Eigen::Index i = 0; i < n; ++i) {
-    Im acc(0);
-    for (Eigen::Index j = 0; j < n; ++j)
-      if (A(i, j) != 0) acc = acc + Im(arith::Mpfr(A(i, j))) * F[j];
-    s = up_add(s, arith::mag_up(acc));
-  }
-  return s;
-}
-
-std::string fmt(double v) {
-  std::ostringstream o;
-  o.precision(3);
-  o << v;
-  return o.str();
-}
-
 }  // namespace
 
 double tail_estimate(const model::Model<Id>& m, const std::vector<Id>& xbar, long N) {
@@ -155,11 +125,7 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
   Eigen::VectorXd spill = Eigen::VectorXd::Zero(n);
   for (int j = 0; j < n; ++j) {
     const auto col = model::derivative_column(md, Dbar, j);
-    auto put = [&](int i, const Id& v) {
-      const double mid = arith::mid_double(v);
-      D.mid(i, j) = mid;
-      D.rad(i, j) = std::max(R::sub_up(v.upper(), mid), R::sub_up(mid, v.lower()));
-    };
+    auto put = [&](int i, const Id& v) { put_entry(D, i, j, v); };
     for (int i = 0; i < ns; ++i) put(i, col.rows[i]);
     for (int k = 0; k < static_cast<int>(col.fun.size()); ++k) {
       if (k < N)
@@ -198,11 +164,7 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
     for (int k = N; k < Kx; ++k) {
       const int c = k - N;
       const auto col = model::derivative_column(md, Dbar, ns + k);
-      auto put = [&](int i, const Id& v) {
-        const double mid = arith::mid_double(v);
-        E.mid(i, c) = mid;
-        E.rad(i, c) = std::max(R::sub_up(v.upper(), mid), R::sub_up(mid, v.lower()));
-      };
+      auto put = [&](int i, const Id& v) { put_entry(E, i, c, v); };
       for (int i = 0; i < ns; ++i) put(i, col.rows[i]);
       for (int q = 0; q < static_cast<int>(col.fun.size()); ++q) {
         if (q < N)
@@ -237,11 +199,7 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
         t[i] = Id(1);
         const auto gt = model::product_sparse(p.g, t);
         MidRad v{MatD::Zero(n, 1), MatD::Zero(n, 1)};
-        for (int q = 0; q < N && q < static_cast<int>(gt.size()); ++q) {
-          const double mid = arith::mid_double(gt[q]);
-          v.mid(ns + q, 0) = mid;
-          v.rad(ns + q, 0) = std::max(R::sub_up(gt[q].upper(), mid), R::sub_up(mid, gt[q].lower()));
-        }
+        for (int q = 0; q < N && q < static_cast<int>(gt.size()); ++q) put_entry(v, ns + q, 0, gt[q]);
         worst = std::max(worst, arith::column_norms_up(arith::product(A, v))(0));
       }
       z1b = up_add(z1b, up_mul(up_mul(p.c_abs, jb.low[p.m]), worst));
@@ -271,35 +229,18 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
       else
         bottom = up_add(bottom, arith::mag_up(F.fun[k]));
     }
-    res.bounds.Y0 = up_add(apply_norm(A, top), bottom);
+    res.bounds.Y0 = up_add(apply_norm_up(A, top), bottom);
   }
 
   // ---- radii polynomial (M3.2) ----
-  const NKBounds& b = res.bounds;
-  const Id gap = Id(1) - Id(b.Z());
-  if (!(gap.lower() > 0)) {
-    res.failure = "Z = max(Z0, Z1) = " + fmt(b.Z()) + " must be < 1 (short by " + fmt(b.Z() - 1) +
-                  "); Z0 = " + fmt(b.Z0) + ", Z1 = " + fmt(b.Z1) + (b.Z1 >= b.Z0 ? " (more modes help Z1)" : "");
+  const RadiiVerdict verdict = radii_polynomial(res.bounds.Y0, res.bounds.Z0, res.bounds.Z1, res.bounds.Z2);
+  if (!verdict.certified) {
+    res.failure = verdict.failure;
     return res;
   }
-  const Id disc = gap * gap - Id(4) * Id(b.Z2) * Id(b.Y0);
-  if (!(disc.lower() > 0)) {
-    res.failure = "(1 - Z)^2 - 4 Z2 Y0 = " + fmt(disc.lower()) + " must be > 0; Y0 = " + fmt(b.Y0) +
-                  ", Z2 = " + fmt(b.Z2) + " (a more accurate candidate or more precision lowers Y0)";
-    return res;
-  }
-  const Id root = sqrt(Id(disc.lower()));
-  const Id rminus = Id(2) * Id(b.Y0) / (Id(gap.lower()) + Id(root.lower()));
-  double r_exist = R::mul_up(rminus.upper(), 1.0 + 0x1p-20);
-  if (r_exist == 0) r_exist = std::numeric_limits<double>::denorm_min();
-  const Id p = Id(b.Z2) * Id(r_exist) * Id(r_exist) - gap * Id(r_exist) + Id(b.Y0);
-  if (!(p.upper() < 0)) {
-    res.failure = "p(r) = Z2 r^2 - (1 - Z) r + Y0 < 0 could not be confirmed at r = " + fmt(r_exist);
-    return res;
-  }
+  const double r_exist = verdict.existence_radius;
   res.existence_radius = r_exist;
-  res.uniqueness_radius = b.Z2 == 0 ? std::numeric_limits<double>::infinity()
-                                    : ((Id(gap.lower()) + Id(root.lower())) / (Id(2) * Id(b.Z2))).lower();
+  res.uniqueness_radius = verdict.uniqueness_radius;
   res.certified = true;
 
   // ---- C³ bounds and values of the true solution ----
