@@ -72,7 +72,7 @@ std::string spans_text(const std::vector<Span>& v) {
   std::string t;
   char buf[80];
   for (const Span& s : v) {
-    std::snprintf(buf, sizeof buf, "%s[%.6f, %.6f]", t.empty() ? "" : ", ", s.first, s.second);
+    std::snprintf(buf, sizeof buf, "%s[%.6g, %.6g]", t.empty() ? "" : ", ", s.first, s.second);
     t += buf;
   }
   return t.empty() ? "none" : t;
@@ -101,7 +101,7 @@ Structure classify(const std::array<cheb::Series<Id>, 4>& D, const std::array<do
   if (type1) {
     st.label = "I";
     std::snprintf(buf, sizeof buf,
-                  "certified: f''' < 0 on [0, %.6f] and f'' < 0 on [%.6f, 1]; with f''(0) = 0 and f'(1) = 0 this gives "
+                  "certified: f''' < 0 on [0, %.3g] and f'' < 0 on [%.3g, 1]; with f''(0) = 0 and f'(1) = 0 this gives "
                   "f'' < 0 on (0,1] and f' > 0 on [0,1)",
                   eta1, eta1);
     st.reason = buf;
