@@ -118,3 +118,24 @@ TEST_CASE("past hard case: integers near 2^63 and large ratios convert outward")
   CHECK(r.lower() <= 9007199254740992.0);
   CHECK(r.upper() >= 9007199254740994.0);
 }
+
+TEST_CASE("past hard case: cos_of contains cos where Boost's reduction fails (2^25 < |x| < 2^56)") {
+  const double x = 0x1.05e5e58cb21ecp+49;
+  const Id c = cos_of(Id(x));
+  mpfr_t t;
+  mpfr_init2(t, 400);
+  mpfr_set_d(t, x, MPFR_RNDN);
+  mpfr_cos(t, t, MPFR_RNDN);
+  CHECK(mpfr_cmp_d(t, c.lower()) >= 0);
+  CHECK(mpfr_cmp_d(t, c.upper()) <= 0);
+  CHECK(c.upper() - c.lower() < 1e-15);
+  mpfr_clear(t);
+  // Extrema inside the interval: cos over [3, 3.3] reaches -1 at π; over [-0.1, 0.2] reaches 1.
+  CHECK(cos_of(Id(3.0, 3.3)).lower() == -1.0);
+  CHECK(cos_of(Id(-0.1, 0.2)).upper() == 1.0);
+  CHECK(cos_of(Id(0.0, 7.0)).lower() == -1.0);
+  PrecisionScope p(200);
+  const Im ci = cos_of(Im(Mpfr(3.0), Mpfr(3.3)));
+  CHECK(ci.lower() == Mpfr(-1));
+  CHECK(cos_of(Im(Mpfr(10.0), Mpfr(10.0))).upper() < Mpfr(-0.83));  // cos 10 ≈ -0.839: tight, not [-1, cos 2]
+}

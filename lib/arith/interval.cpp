@@ -2,6 +2,7 @@
 
 #include <mpfr.h>
 
+#include <algorithm>
 #include <cfenv>
 #include <cstdlib>
 #include <stdexcept>
@@ -127,6 +128,85 @@ std::string decimal_upper(const Id& x, int digits) {
 }
 std::string decimal_lower(const Im& x, int digits) { return fmt("%.*RDe", digits, x.lower().get()); }
 std::string decimal_upper(const Im& x, int digits) { return fmt("%.*RUe", digits, x.upper().get()); }
+
+namespace {
+// [min, max] of cos on [a, b] into lo (rounded down) and hi (rounded up), at precision prec.
+void cos_range(mpfr_srcptr a, mpfr_srcptr b, mpfr_prec_t prec, mpfr_ptr lo, mpfr_ptr hi) {
+  mpfr_t t, u, pi_lo, pi_hi, k;
+  mpfr_inits2(prec, t, u, pi_lo, pi_hi, k, static_cast<mpfr_ptr>(nullptr));
+  mpfr_const_pi(pi_lo, MPFR_RNDD);
+  mpfr_const_pi(pi_hi, MPFR_RNDU);
+  mpfr_sub(t, b, a, MPFR_RNDD);
+  mpfr_mul_ui(u, pi_hi, 2, MPFR_RNDU);
+  if (mpfr_cmp(t, u) >= 0) {  // a full period inside
+    mpfr_set_si(lo, -1, MPFR_RNDD);
+    mpfr_set_si(hi, 1, MPFR_RNDU);
+  } else {
+    mpfr_cos(t, a, MPFR_RNDD);
+    mpfr_cos(u, b, MPFR_RNDD);
+    mpfr_min(lo, t, u, MPFR_RNDD);
+    mpfr_cos(t, a, MPFR_RNDU);
+    mpfr_cos(u, b, MPFR_RNDU);
+    mpfr_max(hi, t, u, MPFR_RNDU);
+    // Multiples jπ that may lie in [a, b]: j from floor(a/π) to ceil(b/π) (at most 4 candidates).
+    mpfr_div(t, a, (mpfr_sgn(a) >= 0 ? pi_hi : pi_lo), MPFR_RNDD);
+    mpfr_floor(k, t);
+    mpfr_div(u, b, (mpfr_sgn(b) >= 0 ? pi_lo : pi_hi), MPFR_RNDU);
+    mpfr_ceil(u, u);
+    for (; mpfr_cmp(k, u) <= 0; mpfr_add_ui(k, k, 1, MPFR_RNDN)) {
+      // Is jπ possibly inside [a, b]? Test with the outward enclosure [j π_lo, j π_hi] (or reversed for j < 0).
+      mpfr_t e1, e2;
+      mpfr_inits2(prec, e1, e2, static_cast<mpfr_ptr>(nullptr));
+      mpfr_mul(e1, k, pi_lo, MPFR_RNDD);
+      mpfr_mul(e2, k, pi_hi, MPFR_RNDU);
+      if (mpfr_sgn(k) < 0) {
+        mpfr_mul(e1, k, pi_hi, MPFR_RNDD);
+        mpfr_mul(e2, k, pi_lo, MPFR_RNDU);
+      }
+      const bool maybe_inside = mpfr_cmp(e2, a) >= 0 && mpfr_cmp(e1, b) <= 0;
+      mpfr_clears(e1, e2, static_cast<mpfr_ptr>(nullptr));
+      if (!maybe_inside) continue;
+      mpfr_fmod_ui(t, k, 2, MPFR_RNDN);
+      if (mpfr_zero_p(t))
+        mpfr_set_si(hi, 1, MPFR_RNDU);
+      else
+        mpfr_set_si(lo, -1, MPFR_RNDD);
+    }
+  }
+  mpfr_clears(t, u, pi_lo, pi_hi, k, static_cast<mpfr_ptr>(nullptr));
+}
+mpfr_prec_t reduction_precision(mpfr_srcptr a, mpfr_srcptr b, mpfr_prec_t base) {
+  long e = 0;
+  if (!mpfr_zero_p(a)) e = std::max(e, static_cast<long>(mpfr_get_exp(a)));
+  if (!mpfr_zero_p(b)) e = std::max(e, static_cast<long>(mpfr_get_exp(b)));
+  return base + e + 64;
+}
+}  // namespace
+
+Id cos_of(const Id& x) {
+  mpfr_t a, b, lo, hi;
+  mpfr_inits2(64, a, b, static_cast<mpfr_ptr>(nullptr));
+  mpfr_set_d(a, x.lower(), MPFR_RNDN);
+  mpfr_set_d(b, x.upper(), MPFR_RNDN);
+  const mpfr_prec_t p = reduction_precision(a, b, 64);
+  mpfr_inits2(p, lo, hi, static_cast<mpfr_ptr>(nullptr));
+  cos_range(a, b, p, lo, hi);
+  const Id r(mpfr_get_d(lo, MPFR_RNDD), mpfr_get_d(hi, MPFR_RNDU));
+  mpfr_clears(a, b, lo, hi, static_cast<mpfr_ptr>(nullptr));
+  return r;
+}
+
+Im cos_of(const Im& x) {
+  const mpfr_prec_t p = reduction_precision(x.lower().get(), x.upper().get(), Mpfr::working_precision());
+  mpfr_t lo, hi;
+  mpfr_inits2(p, lo, hi, static_cast<mpfr_ptr>(nullptr));
+  cos_range(x.lower().get(), x.upper().get(), p, lo, hi);
+  Mpfr l, h;
+  mpfr_set(l.get(), lo, MPFR_RNDD);
+  mpfr_set(h.get(), hi, MPFR_RNDU);
+  mpfr_clears(lo, hi, static_cast<mpfr_ptr>(nullptr));
+  return Im(l, h);
+}
 
 std::string hex_exact(double d) {
   char buf[64];

@@ -101,11 +101,11 @@ template <>
 Id pi<Id>();
 template <>
 Im pi<Im>();
-// Enclosure of cos(x) for a point x (used for Chebyshev points).
-template <Interval I>
-I cos_of(const I& x) {
-  return boost::numeric::cos(x);
-}
+// Enclosure of cos over the interval x, for any finite x (argument reduction in MPFR with enough
+// bits for the exponent of x). Use this, not boost::numeric::cos: Boost's reduction by 2π loses
+// containment for 2^25 ≲ |x| ≲ 2^56 on Id (tests/test_interval_containment.cpp) and is loose on Im.
+Id cos_of(const Id& x);
+Im cos_of(const Im& x);
 
 // ---- output -------------------------------------------------------------------------------
 // Decimal strings with `digits` significant digits: lower bound rounded down, upper rounded up,
