@@ -209,10 +209,11 @@ Action register_recheck(CLI::App& app) {
     if (!ok) std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius, s.existence_radius);
     const proof::Enclosure* mine[4] = {&o.fp0, &o.fppp0, &o.fpp1, &o.K};
     const char* names[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
+    // Compare decimal strings exactly: rounding both the same way at 1024 bits preserves their order.
+    arith::PrecisionScope exact(1024);
+    auto num = [](const std::string& d) { return arith::from_decimal<arith::Im>(d).lower(); };
     for (int i = 0; i < 4; ++i) {
-      const arith::Id lo = arith::from_decimal<arith::Id>(s.values[i][0]);
-      const arith::Id hi = arith::from_decimal<arith::Id>(s.values[i][1]);
-      if (!(lo.upper() <= mine[i]->lo_d && mine[i]->hi_d <= hi.lower())) {
+      if (!(num(s.values[i][0]) <= num(mine[i]->lo) && num(mine[i]->hi) <= num(s.values[i][1]))) {
         // The stated enclosure must contain the re-proved one.
         std::printf("  REJECTED: stated %s = [%s, %s] does not contain the re-proved [%s, %s]\n", names[i],
                     s.values[i][0].c_str(), s.values[i][1].c_str(), mine[i]->lo.c_str(), mine[i]->hi.c_str());

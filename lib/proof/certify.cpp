@@ -106,6 +106,15 @@ CertifyOutcome prove_mpfr(const std::string& lo, const std::string& hi, const st
   return out;
 }
 
+// True when some value enclosure is relatively wider than rel (values at 0 are skipped).
+bool wider_than(const CertifyOutcome& o, double rel) {
+  for (const Enclosure* e : {&o.fp0, &o.fppp0, &o.fpp1, &o.K}) {
+    const double mid = 0.5 * (e->lo_d + e->hi_d);
+    if (mid != 0 && (e->hi_d - e->lo_d) > rel * std::fabs(mid)) return true;
+  }
+  return false;
+}
+
 }  // namespace
 
 CertifyOutcome certify_berman(const CertifyRequest& req) {
@@ -208,6 +217,18 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
       continue;
     }
     break;
+  }
+  if (out.certified && req.precision_bits == 0 && out.precision_bits <= 53 && wider_than(out, req.target_rel_width)) {
+    // Tighter enclosures: Y0 is rounding-bound in double; prove again about an MPFR candidate.
+    const int b2 = 128;
+    arith::PrecisionScope scope(b2);
+    const model::Model<double> mN = make(Rmid);
+    const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(mN, x));
+    double last = 0;
+    const auto xm = candidate::refine_mpfr(model::berman<Mpfr>(Mpfr(Rmid)), x, lu, 5, &last);
+    CertifyOutcome tight = prove_mpfr(req.R_lo, req.R_hi, xm, b2);
+    log.push_back("relative width above " + std::to_string(req.target_rel_width) + " in double: " + tight.log.back());
+    if (tight.certified) out = std::move(tight);
   }
   out.log = log;
   out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();

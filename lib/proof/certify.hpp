@@ -21,6 +21,9 @@ struct CertifyRequest {
   int modes = 0;                                    // 0: automatic
   int max_modes = 3000;
   int max_precision_bits = 1024;
+  // With automatic precision: when a value enclosure is relatively wider than this after a double
+  // proof, the proof is redone about an MPFR-refined candidate (docs/method.md §M5).
+  double target_rel_width = 1e-12;
 };
 
 struct Enclosure {
