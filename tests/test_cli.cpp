@@ -128,3 +128,22 @@ TEST_CASE("greens prints the four beta_k and the direct method certifies R = +-0
   CHECK(far.out.find("NOT CERTIFIED") != std::string::npos);
   CHECK(porecert("verify --R=1 --method banach").rc == 2);
 }
+
+TEST_CASE("fold result re-checks from its stored candidate; a moved fold_R is rejected") {
+  std::system(("mkdir -p " + tmp).c_str());
+  REQUIRE(porecert("fold --no-below-check --json " + tmp + "/fold.json").rc == 0);
+  auto r = porecert("recheck " + tmp + "/fold.json");
+  CHECK(r.rc == 0);
+  CHECK(r.out.find("CONFIRMED") != std::string::npos);
+  std::string c = slurp(tmp + "/fold.json");
+  const auto k = c.find("\"fold_R\": [");
+  REQUIRE(k != std::string::npos);
+  c.replace(k, c.find(']', k) - k + 1, "\"fold_R\": [\"12.2\", \"12.3\"]");
+  {
+    std::ofstream f(tmp + "/fold2.json");
+    f << c;
+  }
+  r = porecert("recheck " + tmp + "/fold2.json");
+  CHECK(r.rc == 1);
+  CHECK(r.out.find("REJECTED") != std::string::npos);
+}

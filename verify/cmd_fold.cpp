@@ -43,6 +43,10 @@ Action register_fold(CLI::App& app) {
     j["bounds"] = {{"Y0", f.bounds.Y0}, {"Z0", f.bounds.Z0}, {"Z1", f.bounds.Z1}, {"Z2", f.bounds.Z2},
                    {"A_norm", f.bounds.A_norm}};
     j["log"] = f.log;
+    j["candidate"] = {{"modes", f.modes},
+                      {"precision_bits", f.precision_bits},
+                      {"layout", "[a = g'(0), K~, R, kappa, u_g modes, u_v modes], g = R f"},
+                      {"coefficients_hex", f.candidate_hex}};
     j["seconds"] = f.seconds;
     std::string below_R;
     if (f.certified) {

@@ -7,6 +7,7 @@
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
 #include "proof/direct.hpp"
+#include "proof/fold.hpp"
 #include "proof/direct_candidate.hpp"
 
 namespace porecert::cli {
@@ -182,14 +183,59 @@ Action register_verify(CLI::App& app) {
   return [v] { return run_verify(*v); };
 }
 
+// Re-proves a `porecert fold` result from its stored candidate; the stated fold_R must contain it.
+int recheck_fold_file(const std::string& path, const nlohmann::json& j) {
+  const auto bad = [&](const std::string& what) {
+    return input_error("fold certificate '" + path + "': " + what + " (truncated or not written by porecert fold?)");
+  };
+  if (!j.contains("candidate") || !j["candidate"].is_object() || !j["candidate"].contains("coefficients_hex") ||
+      !j["candidate"]["coefficients_hex"].is_array())
+    throw bad("key \"candidate.coefficients_hex\" is missing");
+  if (!j["candidate"].contains("precision_bits") || !j["candidate"]["precision_bits"].is_number_integer())
+    throw bad("key \"candidate.precision_bits\" is missing or not an integer");
+  if (!j.contains("fold_R") || !j["fold_R"].is_array() || j["fold_R"].size() != 2 || !j["fold_R"][0].is_string() ||
+      !j["fold_R"][1].is_string())
+    throw bad("key \"fold_R\" must be [lo, hi] as decimal strings");
+  std::vector<std::string> hex;
+  for (const auto& c : j["candidate"]["coefficients_hex"]) {
+    if (!c.is_string()) throw bad("candidate.coefficients_hex holds a non-string");
+    hex.push_back(c.get<std::string>());
+  }
+  proof::FoldOutcome o;
+  try {
+    o = proof::recheck_fold(hex, j["candidate"]["precision_bits"].get<int>());
+  } catch (const std::invalid_argument& e) {
+    throw bad(e.what());
+  }
+  std::printf("porecert recheck: %s (fold, %d modes, %d bits)\n", path.c_str(), o.modes, o.precision_bits);
+  if (!o.certified) {
+    std::printf("  REJECTED: the proof does not go through: %s\n", o.failure.c_str());
+    return 1;
+  }
+  arith::PrecisionScope exact(1024);
+  auto num = [](const std::string& d) { return arith::from_decimal<arith::Im>(d).lower(); };
+  const std::string lo = j["fold_R"][0].get<std::string>(), hi = j["fold_R"][1].get<std::string>();
+  if (!(num(lo) <= num(o.R_lo) && num(o.R_hi) <= num(hi))) {
+    std::printf("  REJECTED: stated fold_R = [%s, %s] does not contain the re-proved [%s, %s]\n", lo.c_str(), hi.c_str(),
+                o.R_lo.c_str(), o.R_hi.c_str());
+    return 1;
+  }
+  std::printf("  CONFIRMED: fold R* in [%s, %s] re-proved from the stored candidate (%.2f s)\n", o.R_lo.c_str(),
+              o.R_hi.c_str(), o.seconds);
+  return 0;
+}
+
 Action register_recheck(CLI::App& app) {
   auto* sub = app.add_subcommand("recheck", "Re-run the proof from a certificate's own content and compare");
   auto path = std::make_shared<std::string>();
   sub->add_option("certificate", *path, "Certificate file (JSON)")->required();
   return [path] {
     certificate::Stored s;
+    nlohmann::json doc;
     try {
-      s = certificate::parse(certificate::read_file(*path));
+      doc = certificate::read_file(*path);
+      if (doc.is_object() && doc.value("format", "") == "porecert-fold") return recheck_fold_file(*path, doc);
+      s = certificate::parse(doc);
     } catch (const certificate::format_error& e) {
       throw input_error(e.what());
     }

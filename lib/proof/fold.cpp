@@ -244,6 +244,8 @@ FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
     std::vector<Id> xi(cand.x.begin(), cand.x.end());
     take(out, fold_verify<Id>(xi));
     out.precision_bits = 53;
+    out.candidate_hex.clear();
+    for (double v : cand.x) out.candidate_hex.push_back(arith::hex_exact(v));
     out.log.push_back("double intervals, " + std::to_string(cand.modes) + " modes: " +
                       (out.certified ? "certified, R* width " + fmt(arith::width_up(out.R)) : out.failure));
     if (precision_bits == 53 || (out.certified && arith::width_up(out.R) <= target_width)) return finish();
@@ -257,9 +259,42 @@ FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
   for (const auto& v : xm) xi.push_back(Im(v));
   take(out, fold_verify<Im>(xi));
   out.precision_bits = bits;
+  out.candidate_hex.clear();
+  for (const auto& v : xm) out.candidate_hex.push_back(arith::hex_exact(v));
   out.log.push_back("MPFR " + std::to_string(bits) + " bits (refined, last correction residual " + fmt(last) + "): " +
                     (out.certified ? "certified, R* width " + fmt(arith::width_up(out.R)) : out.failure));
   return finish();
+}
+
+FoldOutcome recheck_fold(const std::vector<std::string>& hex, int precision_bits) {
+  const auto t0 = std::chrono::steady_clock::now();
+  FoldOutcome out;
+  if (hex.size() < static_cast<std::size_t>(fs::kScalars) + 16 || (hex.size() - fs::kScalars) % 2 != 0)
+    throw std::invalid_argument("fold candidate has " + std::to_string(hex.size()) +
+                                " coefficients; must be 4 scalars plus two equal-length mode lists");
+  if (precision_bits <= 53) {
+    std::vector<Id> xi;
+    for (const auto& h : hex) {
+      const Id v = arith::from_decimal<Id>(h);
+      if (v.lower() != v.upper()) throw std::invalid_argument("fold candidate coefficient '" + h + "' is not a double");
+      xi.push_back(v);
+    }
+    take(out, fold_verify<Id>(xi));
+    out.precision_bits = 53;
+  } else {
+    arith::PrecisionScope scope(precision_bits);
+    std::vector<Im> xi;
+    for (const auto& h : hex) {
+      const Im v = arith::from_decimal<Im>(h);
+      if (v.lower() != v.upper()) throw std::invalid_argument("fold candidate coefficient '" + h + "' is not exact");
+      xi.push_back(v);
+    }
+    take(out, fold_verify<Im>(xi));
+    out.precision_bits = precision_bits;
+  }
+  out.candidate_hex = hex;
+  out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  return out;
 }
 
 }  // namespace porecert::proof

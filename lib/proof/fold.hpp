@@ -168,8 +168,12 @@ struct FoldOutcome {
   std::array<std::array<std::string, 2>, 4> values;  // f'(0), f'''(0), f''(1), K as outward decimals
   std::vector<std::string> log;
   double seconds = 0;
+  std::vector<std::string> candidate_hex;  // the candidate proved about, exactly (for recheck)
 };
 // modes: Chebyshev modes per function (0: automatic, by coefficient decay).
 FoldOutcome certify_fold(double target_width = 1e-10, int precision_bits = 0, int modes = 0);
+// The proof alone, about a stored candidate (hex strings, layout above) at precision_bits
+// (≤ 53: double intervals). Throws std::invalid_argument for a malformed candidate.
+FoldOutcome recheck_fold(const std::vector<std::string>& candidate_hex, int precision_bits);
 
 }  // namespace porecert::proof
