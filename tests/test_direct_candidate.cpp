@@ -61,7 +61,8 @@ void check_contains_reference(const pp::DirectCandidateResult& r, const BermanRe
 
 }  // namespace
 
-TEST_CASE("direct about a Newton candidate closes at R = 0.5, 1, -1; enclosures overlap Newton's and hold the reference") {
+TEST_CASE(
+    "direct about a Newton candidate closes at R = 0.5, 1, -1; enclosures overlap Newton's and hold the reference") {
   for (const char* R : {"0.5", "1", "-1"}) {
     CAPTURE(R);
     const auto o = newton_at(R);
@@ -134,7 +135,8 @@ TEST_CASE("direct about phi at R = 0.5: the defect is R v of D4 (an independent 
   check_contains_reference(r, reference("0.5"));
 }
 
-TEST_CASE("a perturbed candidate gives a larger ball that still holds the reference, or fails; never a false enclosure") {
+TEST_CASE(
+    "a perturbed candidate gives a larger ball that still holds the reference, or fails; never a false enclosure") {
   const auto o = newton_at("1");
   REQUIRE(o.certified);
   const auto base = pp::certify_direct_about(pp::newton_candidate_chain(o.candidate_hex), Id(1));
@@ -163,8 +165,10 @@ TEST_CASE("a perturbed candidate gives a larger ball that still holds the refere
     const auto r = pp::certify_direct_about(pp::newton_candidate_chain(hex), Id(1));
     REQUIRE(r.certified);
     CHECK(r.radius < 1e3 * base.radius);
-    if (which == 1) CHECK(r.radius == base.radius);
-    else CHECK(r.correction_sup[1] > 1e-4);
+    if (which == 1)
+      CHECK(r.radius == base.radius);
+    else
+      CHECK(r.correction_sup[1] > 1e-4);
     check_contains_reference(r, ref);
   }
 }

@@ -83,8 +83,8 @@ TEST_CASE("independent shooting reference (tests/reference, 80-digit Odeint): tw
   const auto lo = berman_reference_from(above, a0 - 2e-3, b0);
   const auto hi = berman_reference_from(above, a0 + 2e-3, b0);
   INFO("R = " << above << ": f'(0) = " << lo.fp0 << " and " << hi.fp0);
-  CHECK(std::fabs(lo.fp0_d - hi.fp0_d) > 1e-5);                   // two different solutions
-  CHECK((lo.fp0_d - a0) * (hi.fp0_d - a0) < 0);                   // on both sides of the fold value
+  CHECK(std::fabs(lo.fp0_d - hi.fp0_d) > 1e-5);  // two different solutions
+  CHECK((lo.fp0_d - a0) * (hi.fp0_d - a0) < 0);  // on both sides of the fold value
   CHECK(std::fabs(lo.fp0_d - a0) < 0.05);
   CHECK(std::fabs(hi.fp0_d - a0) < 0.05);
   // 1e-7 below the enclosure the same Newton finds nothing from the same guesses (consistent with

@@ -1,11 +1,10 @@
 // Green's function of d⁴/dη⁴ with u(0) = u''(0) = u(1) = u'(1) = 0 and the bounds β_k
 // (docs/method.md G1–G11). Independent checks: exact polynomial identities, and Arb's rigorous
 // integrator (acb_calc_integrate, Johansson 2018) on |∂ᵏG/∂ηᵏ(η,·)|.
-#include <doctest/doctest.h>
-
 #include <acb.h>
 #include <acb_calc.h>
 #include <arb.h>
+#include <doctest/doctest.h>
 
 #include <cmath>
 #include <stdexcept>
@@ -281,9 +280,9 @@ TEST_CASE("greens: MPFR enclosures are tighter and nest with the double ones") {
 
 TEST_CASE("greens: sup_by_subdivision on a known function, and domain errors") {
   // F(x) = x(1 − x): sup 1/4 at 1/2, F' = 1 − 2x.
-  const auto s = pp::sup_by_subdivision<Id>([](double x) { return Id(x) * (Id(1) - Id(x)); },
-                                            [](double a, double b) { return Id(1) - Id(2) * Id(a, b); }, 0.0, 1.0,
-                                            1e-12);
+  const auto s =
+      pp::sup_by_subdivision<Id>([](double x) { return Id(x) * (Id(1) - Id(x)); },
+                                 [](double a, double b) { return Id(1) - Id(2) * Id(a, b); }, 0.0, 1.0, 1e-12);
   CHECK(s.tolerance_met);
   CHECK(bn::in(0.25, s.value));
   CHECK(bn::width(s.value) <= 1e-12 * 0.25);

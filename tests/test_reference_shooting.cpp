@@ -2,11 +2,10 @@
 #include <doctest/doctest.h>
 
 #include <array>
+#include <boost/math/constants/constants.hpp>
 #include <cstddef>
 #include <string>
 #include <vector>
-
-#include <boost/math/constants/constants.hpp>
 
 #include "reference/berman_shooting.hpp"
 
@@ -243,6 +242,6 @@ TEST_CASE("berman_reference_from: same type I solution from a rough guess, other
     CHECK(err(y1[1], Real(0)) <= 1e-40);
     CHECK(rel_err(K_at(y1, R), s.K) <= 1e-40);
   }
-  CHECK(found[0].a < 0);                                                 // type III: reversed flow at the centre
+  CHECK(found[0].a < 0);                                                     // type III: reversed flow at the centre
   CHECK(abs(found[0].a - found[1].a) + abs(found[0].b - found[1].b) > 0.1);  // three distinct solutions
 }

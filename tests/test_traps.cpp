@@ -80,7 +80,7 @@ TEST_CASE("trap 8: decimals are read as strings and rounded outward") {
   CHECK(lt_exact(10.0, t.lower(), 1.0));
   CHECK(!lt_exact(10.0, t.upper(), 1.0));
   CHECK(t.upper() == next_up(t.lower()));  // tightest
-  const Id lit(0.1);                         // the trap: the literal is one double, not 1/10
+  const Id lit(0.1);                       // the trap: the literal is one double, not 1/10
   CHECK(lit.lower() == lit.upper());
   CHECK(from_decimal<Id>("0.5").lower() == 0.5);
   CHECK(from_decimal<Id>("0.5").upper() == 0.5);
@@ -105,7 +105,7 @@ TEST_CASE("trap 10: the product kernel's a-priori error term is present") {
   MatD A(2, 2);
   A << 1.0, 0x1p-53, 0.0, 0x1p-53;
   const MidRad C = product(A, MidRad{A.transpose(), MatD::Zero(2, 2)});
-  CHECK(C.mid(0, 0) == 1.0);  // round-to-nearest loses 2^-106 ...
+  CHECK(C.mid(0, 0) == 1.0);               // round-to-nearest loses 2^-106 ...
   CHECK(C.mid(0, 0) + C.rad(0, 0) > 1.0);  // ... the radius must cover it
 }
 

@@ -10,7 +10,6 @@
 using namespace porecert;
 using arith::Id;
 
-
 TEST_CASE("slip wall at R = 0: f = a eta + b eta^3, K = -3/(1 + 3 beta) (derived by hand)") {
   const Id beta = arith::from_decimal<Id>("0.1");
   const auto md = model::berman_slip<double>(0.0, 0.1);

@@ -51,7 +51,9 @@ Action register_branches(CLI::App& app) {
       std::printf("        existence radius %.3g, unique within %.3g; %s\n", s.existence_radius, s.uniqueness_radius,
                   s.structure.reason.c_str());
       std::printf("        flow reversal: %s%s\n", arith::to_string(s.structure.reversal),
-                  s.structure.reversal == arith::Tri::yes ? (" on " + proof::spans_text(s.structure.reversal_where)).c_str() : "");
+                  s.structure.reversal == arith::Tri::yes
+                      ? (" on " + proof::spans_text(s.structure.reversal_where)).c_str()
+                      : "");
     }
     if (!quiet) {
       std::printf("  %zu solution(s) found; pairwise distinct (disjoint enclosures): %s\n", b.solutions.size(),

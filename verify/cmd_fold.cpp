@@ -40,7 +40,10 @@ Action register_fold(CLI::App& app) {
     if (!f.certified) j["failure"] = f.failure;
     j["modes"] = f.modes;
     j["precision_bits"] = f.precision_bits;
-    j["bounds"] = {{"Y0", f.bounds.Y0}, {"Z0", f.bounds.Z0}, {"Z1", f.bounds.Z1}, {"Z2", f.bounds.Z2},
+    j["bounds"] = {{"Y0", f.bounds.Y0},
+                   {"Z0", f.bounds.Z0},
+                   {"Z1", f.bounds.Z1},
+                   {"Z2", f.bounds.Z2},
                    {"A_norm", f.bounds.A_norm}};
     j["log"] = f.log;
     j["candidate"] = {{"modes", f.modes},

@@ -19,7 +19,8 @@ struct GreensOptions {
 };
 
 const char* const kExact[4][3] = {
-    {"(39 + 55*sqrt(33))/65536", "eta = (1 + sqrt(33))/16 (interior)", "by hand: G >= 0, so F_0 = u_1 = (2 eta^4 - 3 eta^3 + eta)/48 (G10)"},
+    {"(39 + 55*sqrt(33))/65536", "eta = (1 + sqrt(33))/16 (interior)",
+     "by hand: G >= 0, so F_0 = u_1 = (2 eta^4 - 3 eta^3 + eta)/48 (G10)"},
     {"1/48", "eta = 0", "value at eta = 0 exact; the branch and bound bounds the sup by it plus the tolerance"},
     {"1/8", "eta = 1", "value at eta = 1 exact; the branch and bound bounds the sup by it plus the tolerance"},
     {"5/8", "eta = 1", "by hand: F_3 is convex, F_3(0) = 3/8, F_3(1) = 5/8 (G11)"}};
@@ -32,14 +33,14 @@ int run(const GreensOptions& o, double tol, int digits) {
   bool consistent = true;
   std::FILE* human = o.json == "-" ? stderr : stdout;  // keep stdout pure JSON with --json -
   std::fprintf(human, "porecert greens: beta_k = sup_eta int_0^1 |d^k G/d eta^k (eta,s)| ds  (%s, rel. tol %s)\n",
-              o.bits == 0 ? "double intervals" : ("MPFR " + std::to_string(o.bits) + " bits").c_str(), o.tol.c_str());
+               o.bits == 0 ? "double intervals" : ("MPFR " + std::to_string(o.bits) + " bits").c_str(), o.tol.c_str());
   for (int k = 0; k < 4; ++k) {
     const I& v = beta[k].value;
     const std::string lo = arith::decimal_lower(v, digits), hi = arith::decimal_upper(v, digits);
     const bool overlap = !(v.upper() < closed[k].lower() || closed[k].upper() < v.lower());
     consistent = consistent && overlap;
-    std::fprintf(human, "  beta_%d in [%s, %s]  = %s, attained at %s%s\n", k, lo.c_str(), hi.c_str(), kExact[k][0], kExact[k][1],
-                beta[k].tolerance_met ? "" : "  (tolerance not reached: enclosure wider)");
+    std::fprintf(human, "  beta_%d in [%s, %s]  = %s, attained at %s%s\n", k, lo.c_str(), hi.c_str(), kExact[k][0],
+                 kExact[k][1], beta[k].tolerance_met ? "" : "  (tolerance not reached: enclosure wider)");
     jb.push_back({lo, hi});
     jc.push_back({arith::decimal_lower(closed[k], digits), arith::decimal_upper(closed[k], digits)});
     jx.push_back({{"k", k},
@@ -61,7 +62,8 @@ int run(const GreensOptions& o, double tol, int digits) {
       "closed-form G (piecewise cubic); for fixed eta, |d^k G| integrated exactly between sign changes enclosed by "
       "interval Newton; sup over eta by branch and bound with a mean-value bound from an enclosure of F_k' "
       "(docs/method.md G6-G9). Lower end: a computed value F_k(eta); upper end: max over the remaining boxes.";
-  j["green_function"] = "G(eta,s) = s (1-eta)^2 (3 eta - (eta+2) s^2)/12 for s <= eta, G(eta,s) = G(s,eta) for s >= eta";
+  j["green_function"] =
+      "G(eta,s) = s (1-eta)^2 (3 eta - (eta+2) s^2)/12 for s <= eta, G(eta,s) = G(s,eta) for s >= eta";
   if (!o.json.empty()) {
     try {
       certificate::write_atomic(o.json, j.dump(2) + "\n");
@@ -83,7 +85,8 @@ Action register_greens(CLI::App& app) {
   CLI::App* sub = app.add_subcommand("greens", "Rigorous bounds beta_0..beta_3 of the Green's function of d^4/deta^4");
   sub->add_option("--json", o->json, "Also write the enclosures as JSON to PATH ('-' = stdout)");
   sub->add_option("--tol", o->tol, "Target relative width of each enclosure (default 1e-12)");
-  sub->add_option("--bits", o->bits, "0 = double intervals (default); 64..4096 = MPFR intervals at that precision (--tol down to 1e-30)");
+  sub->add_option("--bits", o->bits,
+                  "0 = double intervals (default); 64..4096 = MPFR intervals at that precision (--tol down to 1e-30)");
   return [o]() -> int {
     if (o->bits != 0 && (o->bits < 64 || o->bits > 4096))
       throw input_error("--bits: " + std::to_string(o->bits) + " must be 0 (double) or in 64..4096 (MPFR)");

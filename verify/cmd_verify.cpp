@@ -7,8 +7,8 @@
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
 #include "proof/direct.hpp"
-#include "proof/fold.hpp"
 #include "proof/direct_candidate.hpp"
+#include "proof/fold.hpp"
 
 namespace porecert::cli {
 
@@ -35,10 +35,11 @@ std::pair<double, double> parse_start(const std::string& s) {
 
 void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, const std::string& R_hi,
                    const std::string& branch) {
-  std::printf("porecert verify: Berman half-channel, R = %s%s%s, branch %s\n", R_lo.c_str(),
-              R_lo == R_hi ? "" : " .. ", R_lo == R_hi ? "" : R_hi.c_str(), branch.empty() ? "(unlabelled)" : branch.c_str());
-  std::printf("  candidate: %d Chebyshev modes, %s\n", o.modes,
-              o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str());
+  std::printf("porecert verify: Berman half-channel, R = %s%s%s, branch %s\n", R_lo.c_str(), R_lo == R_hi ? "" : " .. ",
+              R_lo == R_hi ? "" : R_hi.c_str(), branch.empty() ? "(unlabelled)" : branch.c_str());
+  std::printf(
+      "  candidate: %d Chebyshev modes, %s\n", o.modes,
+      o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str());
   std::printf("  bounds:    Y0 = %.3g  Z0 = %.3g  Z1 = %.3g  Z2 = %.3g\n", o.Y0, o.Z0, o.Z1, o.Z2);
   if (!o.certified) {
     std::printf("  NOT CERTIFIED: %s\n", o.failure.c_str());
@@ -56,14 +57,17 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
   if (!o.structure.label.empty()) {
     std::printf("  structure: type %s (%s)\n", o.structure.label.c_str(), o.structure.reason.c_str());
     std::printf("  flow reversal (f' < 0 somewhere): %s%s\n", arith::to_string(o.structure.reversal),
-                o.structure.reversal == arith::Tri::yes ? (", on " + proof::spans_text(o.structure.reversal_where)).c_str() : "");
+                o.structure.reversal == arith::Tri::yes
+                    ? (", on " + proof::spans_text(o.structure.reversal_where)).c_str()
+                    : "");
   }
   std::printf("  time %.2f s. %s\n", o.seconds, certificate::kCaution);
 }
 
 // The direct Banach contraction about the R = 0 profile (lib/proof/direct.hpp, docs/method.md D1-D14).
 int run_direct(const proof::CertifyRequest& req, const std::string& json_path) {
-  const arith::Id R = boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
+  const arith::Id R =
+      boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
   const proof::DirectResult r = proof::certify_direct(R);
   nlohmann::json j = proof::to_json(r);
   j["R"] = nlohmann::json::array({req.R_lo, req.R_hi});
@@ -76,9 +80,10 @@ int run_direct(const proof::CertifyRequest& req, const std::string& json_path) {
                   q.value("holds", "") == "yes" ? "holds" : "FAILS", q["lhs"][1].get<std::string>().c_str(),
                   q["rhs"][0].get<std::string>().c_str(), q["margin"][0].get<std::string>().c_str());
     if (r.certified)
-      std::printf("  CERTIFIED: unique solution in the weighted C3 ball of radius %.6g about (3 eta - eta^3)/2 "
-                  "(unique up to radius %.6g)\n",
-                  r.radius, r.uniqueness_radius);
+      std::printf(
+          "  CERTIFIED: unique solution in the weighted C3 ball of radius %.6g about (3 eta - eta^3)/2 "
+          "(unique up to radius %.6g)\n",
+          r.radius, r.uniqueness_radius);
     else
       std::printf("  NOT CERTIFIED: %s\n", r.reason.c_str());
     std::printf("  %s\n", certificate::kCaution);
@@ -102,7 +107,8 @@ int run_verify(const VerifyOptions& v) {
     prob.scenario = c.title;
   }
   if (!v.R.empty()) std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", v.R);
-  if (req.R_lo.empty()) throw input_error("--R: missing (give --R=VALUE or --R=LO:HI, or a case file with flow.reynolds)");
+  if (req.R_lo.empty())
+    throw input_error("--R: missing (give --R=VALUE or --R=LO:HI, or a case file with flow.reynolds)");
   if (!v.branch.empty()) req.branch = v.branch;
   if (!v.start.empty()) {
     req.start = parse_start(v.start);
@@ -137,8 +143,8 @@ int run_verify(const VerifyOptions& v) {
         break;
       }
     if (!found) {
-      o.failure = "no certified solution with the structure of type " + req.branch + " was found in the searched region (" +
-                  all.region + ")";
+      o.failure = "no certified solution with the structure of type " + req.branch +
+                  " was found in the searched region (" + all.region + ")";
       o.log = all.log;
     }
   } else {
@@ -147,14 +153,16 @@ int run_verify(const VerifyOptions& v) {
   nlohmann::json cert = certificate::to_json(prob, o);
   std::string c3_line;
   {  // C3-ball uniqueness: direct contraction about the Newton candidate (lib/proof/direct_candidate.hpp, D15-D25).
-    const arith::Id R = boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
+    const arith::Id R =
+        boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
     if (o.certified && boost::numeric::abs(R).upper() <= 2) {
       const auto u = proof::c3_uniqueness_from_newton(o, R);
       cert["c3_uniqueness"] = proof::to_json(u);
-      c3_line = u.direct.certified ? "  C3 ball:   unique solution within weighted C3 radius " +
-                                         cert["c3_uniqueness"]["uniqueness_radius"].get<std::string>() +
-                                         " of the candidate (direct contraction, w = 115,30,5,1)"
-                                   : "  C3 ball:   not certified (" + std::string(u.direct.reason.substr(0, 80)) + "...)";
+      c3_line = u.direct.certified
+                    ? "  C3 ball:   unique solution within weighted C3 radius " +
+                          cert["c3_uniqueness"]["uniqueness_radius"].get<std::string>() +
+                          " of the candidate (direct contraction, w = 115,30,5,1)"
+                    : "  C3 ball:   not certified (" + std::string(u.direct.reason.substr(0, 80)) + "...)";
     }
   }
   const std::string text = cert.dump(2) + "\n";
@@ -173,13 +181,16 @@ Action register_verify(CLI::App& app) {
   auto* sub = app.add_subcommand("verify", "Certify one solution of Berman's problem at R (a number or an interval)");
   auto v = std::make_shared<VerifyOptions>();
   sub->add_option("case", v->case_file, "Case file (TOML, docs/case-files.md)");
-  sub->add_option("--R", v->R, "Wall Reynolds number: VALUE or LO:HI (decimal; R > 0 suction)")->allow_extra_args(false);
+  sub->add_option("--R", v->R, "Wall Reynolds number: VALUE or LO:HI (decimal; R > 0 suction)")
+      ->allow_extra_args(false);
   sub->add_option("--branch", v->branch, "Solution branch: I (continuation from R = 0), II or III (branch search)");
   sub->add_option("--start", v->start, "Shooting guess a,b for f'(0), f'''(0) (instead of --branch)");
   sub->add_option("--precision", v->precision, "Interval precision in bits (53 = double; default: automatic)");
   sub->add_option("--modes", v->modes, "Chebyshev modes (default: from coefficient decay and the tail bound)");
   sub->add_option("--json", v->json, "Write the certificate (JSON) to PATH, or - for stdout");
-  sub->add_option("--method", v->method, "Proof method: newton (Newton-Kantorovich about a candidate) or direct (contraction about the R = 0 profile)");
+  sub->add_option(
+      "--method", v->method,
+      "Proof method: newton (Newton-Kantorovich about a candidate) or direct (contraction about the R = 0 profile)");
   return [v] { return run_verify(*v); };
 }
 
@@ -216,8 +227,8 @@ int recheck_fold_file(const std::string& path, const nlohmann::json& j) {
   auto num = [](const std::string& d) { return arith::from_decimal<arith::Im>(d).lower(); };
   const std::string lo = j["fold_R"][0].get<std::string>(), hi = j["fold_R"][1].get<std::string>();
   if (!(num(lo) <= num(o.R_lo) && num(o.R_hi) <= num(hi))) {
-    std::printf("  REJECTED: stated fold_R = [%s, %s] does not contain the re-proved [%s, %s]\n", lo.c_str(), hi.c_str(),
-                o.R_lo.c_str(), o.R_hi.c_str());
+    std::printf("  REJECTED: stated fold_R = [%s, %s] does not contain the re-proved [%s, %s]\n", lo.c_str(),
+                hi.c_str(), o.R_lo.c_str(), o.R_hi.c_str());
     return 1;
   }
   std::printf("  CONFIRMED: fold R* in [%s, %s] re-proved from the stored candidate (%.2f s)\n", o.R_lo.c_str(),
@@ -252,7 +263,9 @@ Action register_recheck(CLI::App& app) {
       return 1;
     }
     bool ok = o.existence_radius <= s.existence_radius;
-    if (!ok) std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius, s.existence_radius);
+    if (!ok)
+      std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius,
+                  s.existence_radius);
     const proof::Enclosure* mine[4] = {&o.fp0, &o.fppp0, &o.fpp1, &o.K};
     const char* names[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
     // Compare decimal strings exactly: rounding both the same way at 1024 bits preserves their order.
@@ -266,7 +279,9 @@ Action register_recheck(CLI::App& app) {
         ok = false;
       }
     }
-    if (ok) std::printf("  CONFIRMED: proof re-run from the stored candidate; every stated enclosure holds (%.2f s)\n", o.seconds);
+    if (ok)
+      std::printf("  CONFIRMED: proof re-run from the stored candidate; every stated enclosure holds (%.2f s)\n",
+                  o.seconds);
     return ok ? 0 : 1;
   };
 }

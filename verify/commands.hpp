@@ -2,7 +2,6 @@
 // Exit codes everywhere: 0 certified / done, 1 not certified, 2 bad input (docs/cli.md).
 #pragma once
 #include <CLI/CLI.hpp>
-
 #include <functional>
 #include <string>
 

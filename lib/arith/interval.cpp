@@ -23,11 +23,21 @@ static double transc(int fn, double x, mpfr_rnd_t r) {
   mpfr_init2(t, 200);
   mpfr_set_d(t, x, MPFR_RNDN);  // exact
   switch (fn) {
-    case fn_exp: mpfr_exp(t, t, r); break;
-    case fn_log: mpfr_log(t, t, r); break;
-    case fn_sin: mpfr_sin(t, t, r); break;
-    case fn_cos: mpfr_cos(t, t, r); break;
-    default: mpfr_atan(t, t, r); break;
+    case fn_exp:
+      mpfr_exp(t, t, r);
+      break;
+    case fn_log:
+      mpfr_log(t, t, r);
+      break;
+    case fn_sin:
+      mpfr_sin(t, t, r);
+      break;
+    case fn_cos:
+      mpfr_cos(t, t, r);
+      break;
+    default:
+      mpfr_atan(t, t, r);
+      break;
   }
   // Directed rounding twice in the same direction is the directed rounding (grids nest).
   const double d = mpfr_get_d(t, r);
@@ -51,9 +61,8 @@ bool parse_into(mpfr_t t, std::string_view s, mpfr_rnd_t r) {
   std::string str(s);
   if (str.empty()) return false;
   for (char c : str)
-    if (!(std::isdigit(static_cast<unsigned char>(c)) || c == '.' || c == 'e' || c == 'E' || c == '+' ||
-          c == '-' || c == 'x' || c == 'X' || c == 'p' || c == 'P' || (c >= 'a' && c <= 'f') ||
-          (c >= 'A' && c <= 'F')))
+    if (!(std::isdigit(static_cast<unsigned char>(c)) || c == '.' || c == 'e' || c == 'E' || c == '+' || c == '-' ||
+          c == 'x' || c == 'X' || c == 'p' || c == 'P' || (c >= 'a' && c <= 'f') || (c >= 'A' && c <= 'F')))
       return false;
   char* end = nullptr;
   mpfr_strtofr(t, str.c_str(), &end, 0, r);

@@ -63,17 +63,33 @@ struct rounded_mpfr {
     mpfr_set_d(z.get(), v, r);
     return z;
   }
-  static Mpfr conv(long v, mpfr_rnd_t r) { Mpfr z; mpfr_set_si(z.get(), v, r); return z; }
+  static Mpfr conv(long v, mpfr_rnd_t r) {
+    Mpfr z;
+    mpfr_set_si(z.get(), v, r);
+    return z;
+  }
   static Mpfr conv(int v, mpfr_rnd_t r) { return conv(static_cast<long>(v), r); }
   template <class U>
-  static Mpfr conv_down(const U& v) { return conv(v, MPFR_RNDD); }
+  static Mpfr conv_down(const U& v) {
+    return conv(v, MPFR_RNDD);
+  }
   template <class U>
-  static Mpfr conv_up(const U& v) { return conv(v, MPFR_RNDU); }
+  static Mpfr conv_up(const U& v) {
+    return conv(v, MPFR_RNDU);
+  }
 };
 
 struct checking_catch_nan_mpfr {
-  static Mpfr pos_inf() { Mpfr z; mpfr_set_inf(z.get(), 1); return z; }
-  static Mpfr neg_inf() { Mpfr z; mpfr_set_inf(z.get(), -1); return z; }
+  static Mpfr pos_inf() {
+    Mpfr z;
+    mpfr_set_inf(z.get(), 1);
+    return z;
+  }
+  static Mpfr neg_inf() {
+    Mpfr z;
+    mpfr_set_inf(z.get(), -1);
+    return z;
+  }
   static Mpfr nan() { detail::throw_nan("interval nan()"); }
   static bool is_nan(const Mpfr& x) { return mpfr_nan_p(x.get()) != 0; }
   static Mpfr empty_lower() { detail::throw_nan("empty interval"); }
@@ -81,6 +97,7 @@ struct checking_catch_nan_mpfr {
   static bool is_empty(const Mpfr& l, const Mpfr& u) { return !(l <= u); }
 };
 
-using Im = boost::numeric::interval<Mpfr, boost::numeric::interval_lib::policies<rounded_mpfr, checking_catch_nan_mpfr>>;
+using Im =
+    boost::numeric::interval<Mpfr, boost::numeric::interval_lib::policies<rounded_mpfr, checking_catch_nan_mpfr>>;
 
 }  // namespace porecert::arith

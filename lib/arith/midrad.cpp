@@ -6,8 +6,8 @@
 namespace porecert::arith {
 
 namespace {
-constexpr double kUnit = 0x1p-53;        // unit roundoff of binary64
-constexpr double kEta = 0x1p-1074;       // smallest subnormal: underflow error per product ≤ η/2
+constexpr double kUnit = 0x1p-53;   // unit roundoff of binary64
+constexpr double kEta = 0x1p-1074;  // smallest subnormal: underflow error per product ≤ η/2
 using R = rounded_nearest_outward;
 
 // γ_k = k u / (1 − k u), rounded up.
@@ -58,8 +58,9 @@ Eigen::VectorXd identity_defect_column_norms_up(const MidRad& C) {
   Eigen::VectorXd s = Eigen::VectorXd::Zero(C.cols());
   for (Eigen::Index j = 0; j < C.cols(); ++j)
     for (Eigen::Index i = 0; i < C.rows(); ++i) {
-      const double d = (i == j) ? std::max(std::fabs(R::sub_up(1.0, C.mid(i, j))), std::fabs(R::sub_down(1.0, C.mid(i, j))))
-                                : std::fabs(C.mid(i, j));
+      const double d = (i == j)
+                           ? std::max(std::fabs(R::sub_up(1.0, C.mid(i, j))), std::fabs(R::sub_down(1.0, C.mid(i, j))))
+                           : std::fabs(C.mid(i, j));
       s(j) = R::add_up(s(j), R::add_up(d, C.rad(i, j)));
     }
   return s;

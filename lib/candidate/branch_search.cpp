@@ -38,9 +38,7 @@ bool shoot_newton(double R, double& a, double& b) {
   return false;
 }
 
-double fppp0_of(const Model<double>& m, const Vec& x) {
-  return cheb::value_at_0(model::u_of(m, x));
-}
+double fppp0_of(const Model<double>& m, const Vec& x) { return cheb::value_at_0(model::u_of(m, x)); }
 }  // namespace
 
 std::array<double, 2> shoot(double R, double a, double b, int steps) {
@@ -91,7 +89,9 @@ SearchReport find_branches(double R, int n_max) {
       double a = a0, b = b0;
       if (!shoot_newton(Rs, a, b)) continue;
       bool dup = false;
-      for (auto& h : hits) dup = dup || (std::fabs(h.first - a) < 1e-5 * (1 + std::fabs(a)) && std::fabs(h.second - b) < 1e-5 * (1 + std::fabs(b)));
+      for (auto& h : hits)
+        dup = dup || (std::fabs(h.first - a) < 1e-5 * (1 + std::fabs(a)) &&
+                      std::fabs(h.second - b) < 1e-5 * (1 + std::fabs(b)));
       if (!dup) hits.push_back({a, b});
     }
   for (auto [a, b] : hits) {
@@ -100,11 +100,13 @@ SearchReport find_branches(double R, int n_max) {
     if (Rs != R) {
       s = continuation(make, s.x, Rs, R, n_max);
       if (!s.converged) {
-        rep.log.push_back("shooting hit (" + std::to_string(a) + ", " + std::to_string(b) + ") lost in continuation: " + s.note);
+        rep.log.push_back("shooting hit (" + std::to_string(a) + ", " + std::to_string(b) +
+                          ") lost in continuation: " + s.note);
         continue;
       }
     }
-    add(s.x, "shooting scan at R = " + std::to_string(Rs) + " from (" + std::to_string(a) + ", " + std::to_string(b) + ")");
+    add(s.x,
+        "shooting scan at R = " + std::to_string(Rs) + " from (" + std::to_string(a) + ", " + std::to_string(b) + ")");
   }
   return rep;
 }

@@ -10,14 +10,14 @@
 namespace porecert::candidate {
 
 struct Found {
-  Vec x;                 // Galerkin candidate at the requested R
-  double a = 0, b = 0;   // shooting data f'(0), f'''(0) of the candidate
-  std::string origin;    // how it was found
+  Vec x;                // Galerkin candidate at the requested R
+  double a = 0, b = 0;  // shooting data f'(0), f'''(0) of the candidate
+  std::string origin;   // how it was found
 };
 
 struct SearchReport {
   std::vector<Found> found;
-  std::string region;    // the searched region, in words
+  std::string region;  // the searched region, in words
   std::vector<std::string> log;
 };
 

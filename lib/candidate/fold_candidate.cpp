@@ -62,11 +62,17 @@ bool newton_generic(V& x, Res res, Jac jac, int iters, double* last) {
     double scale = 1;
     for (double v : x) scale = std::max(scale, std::fabs(v));
     if (dx.lpNorm<Eigen::Infinity>() <= 1e-14 * scale) {
-      { const Eigen::VectorXd rr = res(x); *last = rr.lpNorm<Eigen::Infinity>(); }
+      {
+        const Eigen::VectorXd rr = res(x);
+        *last = rr.lpNorm<Eigen::Infinity>();
+      }
       return std::isfinite(*last);
     }
   }
-  { const Eigen::VectorXd rr = res(x); *last = rr.lpNorm<Eigen::Infinity>(); }
+  {
+    const Eigen::VectorXd rr = res(x);
+    *last = rr.lpNorm<Eigen::Infinity>();
+  }
   return *last < 1e-10;
 }
 
@@ -151,8 +157,7 @@ FoldCandidate fold_candidate(int modes) {
     double res = 0;
     const bool ok = newton_generic(
         guess, [&](const V& z) { return branch_residual(z, N, s); },
-        [&](const V& z) { return branch_jacobian(z, N, s); },
-        30, &res);
+        [&](const V& z) { return branch_jacobian(z, N, s); }, 30, &res);
     if (!ok) {
       out.log.push_back(fmt("continuation lost at s = %.6g (residual %.3g)", s, res));
       break;
@@ -220,17 +225,15 @@ FoldCandidate fold_candidate(int modes) {
     out.log.push_back(fmt("extended Newton, %g modes: residual %.3g", N, r) + (ok ? "" : " (not converged)"));
     if (!ok) return out;
     out.converged = true;
-    if (modes > 0 || N >= 160 ||
-        (decayed_block(x, fs::kScalars, N) && decayed_block(x, fs::kScalars + N, N)))
-      break;
+    if (modes > 0 || N >= 160 || (decayed_block(x, fs::kScalars, N) && decayed_block(x, fs::kScalars + N, N))) break;
     const int N2 = std::min(160, N * 3 / 2);
     x = pad_extended(x, N, N2);
     N = N2;
   }
   out.x = x;
   out.modes = N;
-  out.log.push_back(fmt("candidate fold: R = %.15g, f'(0) = %.12g, kappa = %.6g", x[fs::kR], x[fs::kA] / x[fs::kR],
-                        x[fs::kKappa]));
+  out.log.push_back(
+      fmt("candidate fold: R = %.15g, f'(0) = %.12g, kappa = %.6g", x[fs::kR], x[fs::kA] / x[fs::kR], x[fs::kKappa]));
   return out;
 }
 

@@ -16,7 +16,7 @@ struct FoldCandidate {
   std::vector<double> x;  // layout of lib/proof/fold.hpp
   bool converged = false;
   int modes = 0;
-  double residual = 0;    // max-norm of the truncated residual
+  double residual = 0;  // max-norm of the truncated residual
   std::vector<std::string> log;
 };
 

@@ -213,8 +213,9 @@ NewtonReport continuation(const std::function<Model<double>(double)>& make, Vec 
       }
       continue;
     }
-    if (log) log->push_back("R = " + std::to_string(R_next) + ": " + std::to_string(r.iterations) +
-                            " Newton steps, " + std::to_string(modes_of(m, r.x)) + " modes");
+    if (log)
+      log->push_back("R = " + std::to_string(R_next) + ": " + std::to_string(r.iterations) + " Newton steps, " +
+                     std::to_string(modes_of(m, r.x)) + " modes");
     x_prev = (r.x.size() == x.size()) ? x : Vec{};
     R_prev = R;
     x = r.x;

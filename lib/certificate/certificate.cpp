@@ -28,12 +28,13 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
   j["format_version"] = kFormatVersion;
   j["status"] = o.certified ? "certified" : "not certified";
   j["R"] = json::array({p.R_lo, p.R_hi});
-  j["problem"] = {
-      {"model", "berman-half-channel"},
-      {"equation", "f'''' + R (f' f'' - f f''') = 0 on [0,1]; integrated: f''' + R (f'^2 - f f'') = K"},
-      {"boundary_conditions", json::array({"f(0) = 0", "f''(0) = 0", "f(1) = 1", "f'(1) = 0"})},
-      {"parameters", {{"R", json::array({p.R_lo, p.R_hi})}}},
-      {"R_meaning", "wall Reynolds number V h / nu; R > 0 suction, R < 0 injection; the certificate holds for every R in the interval"}};
+  j["problem"] = {{"model", "berman-half-channel"},
+                  {"equation", "f'''' + R (f' f'' - f f''') = 0 on [0,1]; integrated: f''' + R (f'^2 - f f'') = K"},
+                  {"boundary_conditions", json::array({"f(0) = 0", "f''(0) = 0", "f(1) = 1", "f'(1) = 0"})},
+                  {"parameters", {{"R", json::array({p.R_lo, p.R_hi})}}},
+                  {"R_meaning",
+                   "wall Reynolds number V h / nu; R > 0 suction, R < 0 injection; the certificate holds for every R "
+                   "in the interval"}};
   if (!p.scenario.empty()) j["scenario"] = p.scenario;
   if (!p.branch.empty()) j["branch_requested"] = p.branch;
   if (o.certified && !o.structure.label.empty()) {
@@ -53,22 +54,24 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
                        "'unsure' = neither could be certified"}};
   }
   j["method"] = "newton-kantorovich";
-  j["space"] = {
-      {"description",
-       "x = (f'(0), K, u) with u = f''' as a Chebyshev series on [0,1]; norm |f'(0)| + |K| + sum_k |u_k| "
-       "(l1 of Chebyshev coefficients, weight 1 on every component)"},
-      {"weights", {{"f'(0)", 1}, {"K", 1}, {"u_k", "1 (nu = 1)"}}}};
+  j["space"] = {{"description",
+                 "x = (f'(0), K, u) with u = f''' as a Chebyshev series on [0,1]; norm |f'(0)| + |K| + sum_k |u_k| "
+                 "(l1 of Chebyshev coefficients, weight 1 on every component)"},
+                {"weights", {{"f'(0)", 1}, {"K", 1}, {"u_k", "1 (nu = 1)"}}}};
   j["existence_radius"] = up_str(o.existence_radius);
   j["uniqueness_radius"] = down_str(o.uniqueness_radius);
-  j["uniqueness"] = o.certified ? "the true solution is the only one in the open ball of radius uniqueness_radius about "
-                                  "the candidate, in the space above (not a global uniqueness claim)"
-                                : "none";
+  j["uniqueness"] = o.certified
+                        ? "the true solution is the only one in the open ball of radius uniqueness_radius about "
+                          "the candidate, in the space above (not a global uniqueness claim)"
+                        : "none";
   j["error_bounds"] = {{"sup|f - fbar|", up_str(o.c3_error[0])},
                        {"sup|f' - fbar'|", up_str(o.c3_error[1])},
                        {"sup|f'' - fbar''|", up_str(o.c3_error[2])},
                        {"sup|f''' - fbar'''|", up_str(o.c3_error[3])}};
   if (o.certified) {
-    j["values"] = {{kValueKeys[0], pair(o.fp0)}, {kValueKeys[1], pair(o.fppp0)}, {kValueKeys[2], pair(o.fpp1)},
+    j["values"] = {{kValueKeys[0], pair(o.fp0)},
+                   {kValueKeys[1], pair(o.fppp0)},
+                   {kValueKeys[2], pair(o.fpp1)},
                    {kValueKeys[3], pair(o.K)}};
   } else {
     j["values"] = json::object();
@@ -98,13 +101,14 @@ const json& need(const json& j, const char* key, json::value_t type, const char*
     throw format_error(std::string("certificate: key \"") + key + "\" is missing (" + rule + ")");
   const json& v = j.at(key);
   if (v.type() != type && !(type == json::value_t::number_integer && v.is_number_unsigned()))
-    throw format_error(std::string("certificate: key \"") + key + "\" has value " + v.dump().substr(0, 60) +
-                       " (" + rule + ")");
+    throw format_error(std::string("certificate: key \"") + key + "\" has value " + v.dump().substr(0, 60) + " (" +
+                       rule + ")");
   return v;
 }
 std::array<std::string, 2> str_pair(const json& v, const std::string& key) {
   if (!v.is_array() || v.size() != 2 || !v[0].is_string() || !v[1].is_string())
-    throw format_error("certificate: \"" + key + "\" must be [lo, hi] as two decimal strings, got " + v.dump().substr(0, 60));
+    throw format_error("certificate: \"" + key + "\" must be [lo, hi] as two decimal strings, got " +
+                       v.dump().substr(0, 60));
   return {v[0].get<std::string>(), v[1].get<std::string>()};
 }
 }  // namespace
@@ -113,17 +117,20 @@ Stored parse(const json& j) {
   Stored s;
   const auto& fmt = need(j, "format", json::value_t::string, "must be \"porecert-certificate\"");
   if (fmt.get<std::string>() != kFormat)
-    throw format_error("certificate: key \"format\" is \"" + fmt.get<std::string>() + "\", must be \"porecert-certificate\"");
+    throw format_error("certificate: key \"format\" is \"" + fmt.get<std::string>() +
+                       "\", must be \"porecert-certificate\"");
   s.status = need(j, "status", json::value_t::string, "\"certified\" or \"not certified\"").get<std::string>();
   if (s.status != "certified" && s.status != "not certified")
-    throw format_error("certificate: key \"status\" is \"" + s.status + "\", must be \"certified\" or \"not certified\"");
+    throw format_error("certificate: key \"status\" is \"" + s.status +
+                       "\", must be \"certified\" or \"not certified\"");
   const auto R = str_pair(need(j, "R", json::value_t::array, "[lo, hi] decimal strings"), "R");
   s.problem.R_lo = R[0];
   s.problem.R_hi = R[1];
   const auto& prob = need(j, "problem", json::value_t::object, "the problem statement");
   const auto model = need(prob, "model", json::value_t::string, "model identifier").get<std::string>();
   if (model != "berman-half-channel")
-    throw format_error("certificate: problem.model is \"" + model + "\"; this version re-checks \"berman-half-channel\"");
+    throw format_error("certificate: problem.model is \"" + model +
+                       "\"; this version re-checks \"berman-half-channel\"");
   if (j.contains("branch") && j["branch"].is_string()) s.problem.branch = j["branch"].get<std::string>();
   const auto& cand = need(j, "candidate", json::value_t::object, "the candidate, exactly");
   s.precision_bits = need(cand, "precision_bits", json::value_t::number_integer, "an integer >= 53").get<int>();
@@ -148,7 +155,8 @@ Stored parse(const json& j) {
   const auto& vals = need(j, "values", json::value_t::object, "the value enclosures");
   if (s.status == "certified")
     for (int i = 0; i < 4; ++i) {
-      if (!vals.contains(kValueKeys[i])) throw format_error(std::string("certificate: values.\"") + kValueKeys[i] + "\" is missing");
+      if (!vals.contains(kValueKeys[i]))
+        throw format_error(std::string("certificate: values.\"") + kValueKeys[i] + "\" is missing");
       s.values[i] = str_pair(vals.at(kValueKeys[i]), std::string("values.") + kValueKeys[i]);
     }
   return s;

@@ -12,9 +12,9 @@ inline constexpr const char* kFormat = "porecert-certificate";
 inline constexpr int kFormatVersion = 1;
 
 struct Problem {
-  std::string R_lo, R_hi;   // decimal strings as given
-  std::string branch;       // "I", "II", "III" or "" (unlabelled)
-  std::string scenario;     // case title, if any
+  std::string R_lo, R_hi;  // decimal strings as given
+  std::string branch;      // "I", "II", "III" or "" (unlabelled)
+  std::string scenario;    // case title, if any
 };
 
 nlohmann::json to_json(const Problem& p, const proof::CertifyOutcome& o);

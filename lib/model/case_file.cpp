@@ -14,8 +14,8 @@ std::string number_text(const toml::node& n, const std::string& field) {
   if (n.is_integer()) return std::to_string(*n.value<std::int64_t>());
   if (n.is_floating_point())
     throw input_error(field + ": the TOML float " + std::to_string(*n.value<double>()) +
-                      " would be rounded to binary; write decimals as strings, e.g. " + field.substr(field.rfind('.') + 1) +
-                      " = \"12.5\", so they are read exactly");
+                      " would be rounded to binary; write decimals as strings, e.g. " +
+                      field.substr(field.rfind('.') + 1) + " = \"12.5\", so they are read exactly");
   throw input_error(field + ": must be a decimal string or an integer");
 }
 }  // namespace

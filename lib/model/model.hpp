@@ -20,8 +20,8 @@ namespace porecert::model {
 template <class S>
 struct LinTerm {
   S coef;
-  int d;                      // derivative order 0..3
-  cheb::Series<S> weight;     // w(η); empty means w = 1
+  int d;                   // derivative order 0..3
+  cheb::Series<S> weight;  // w(η); empty means w = 1
 };
 
 template <class S>
@@ -34,7 +34,7 @@ template <class S>
 struct BoundaryRow {
   std::array<S, 3> coef;  // on f(1), f'(1), f''(1)
   S value;
-  std::string text;       // e.g. "f(1) = 1"
+  std::string text;  // e.g. "f(1) = 1"
 };
 
 template <class S>
@@ -45,8 +45,8 @@ struct Parameter {
 
 template <class S>
 struct Model {
-  std::string id;             // stable identifier used in certificates, e.g. "berman-half-channel"
-  std::string equation_text;  // human-readable equation
+  std::string id;                              // stable identifier used in certificates, e.g. "berman-half-channel"
+  std::string equation_text;                   // human-readable equation
   std::array<std::optional<S>, 3> fixed_at_0;  // f(0), f'(0), f''(0); nullopt = unknown
   std::vector<LinTerm<S>> lin;
   std::vector<QuadTerm<S>> quad;

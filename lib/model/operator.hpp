@@ -53,8 +53,8 @@ cheb::Series<S> product_sparse(const cheb::Series<S>& a, const cheb::Series<S>& 
 
 template <class S>
 struct Value {
-  std::vector<S> rows;     // boundary rows (M1.3), residual form Σ a_d D^d f(1) − value
-  cheb::Series<S> fun;     // (M1.2), all coefficients (no truncation)
+  std::vector<S> rows;  // boundary rows (M1.3), residual form Σ a_d D^d f(1) − value
+  cheb::Series<S> fun;  // (M1.2), all coefficients (no truncation)
 };
 
 // F(x): exact enclosure of the residual (no truncation; length ≈ 2·len(u) + 8).

@@ -15,7 +15,8 @@ arith::Tri distinct(const CertifyOutcome& a, const CertifyOutcome& b) {
 
 BranchesOutcome certify_branches(const CertifyRequest& req) {
   BranchesOutcome out;
-  const arith::Id R = boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
+  const arith::Id R =
+      boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
   const auto search = candidate::find_branches(arith::mid_double(R), req.max_modes);
   out.region = search.region;
   out.log = search.log;

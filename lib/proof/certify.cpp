@@ -20,8 +20,8 @@ namespace {
 
 template <arith::Interval I>
 Enclosure enclose(const I& x) {
-  return {arith::decimal_lower(x, std::is_same_v<I, Id> ? 17 : 40), arith::decimal_upper(x, std::is_same_v<I, Id> ? 17 : 40),
-          arith::lower_down(x), arith::upper_up(x)};
+  return {arith::decimal_lower(x, std::is_same_v<I, Id> ? 17 : 40),
+          arith::decimal_upper(x, std::is_same_v<I, Id> ? 17 : 40), arith::lower_down(x), arith::upper_up(x)};
 }
 
 template <arith::Interval I>
@@ -100,8 +100,8 @@ CertifyOutcome prove_mpfr(const std::string& lo, const std::string& hi, const st
   take(out, r);
   add_structure(out, mdl, xb);
   out.precision_bits = bits;
-  out.log.push_back("MPFR " + std::to_string(bits) + " bits, " + std::to_string(r.modes) + " modes: " +
-                    summary(r.bounds) + (r.certified ? " -> certified" : " -> " + r.failure));
+  out.log.push_back("MPFR " + std::to_string(bits) + " bits, " + std::to_string(r.modes) +
+                    " modes: " + summary(r.bounds) + (r.certified ? " -> certified" : " -> " + r.failure));
   for (const Mpfr& v : x) out.candidate_hex.push_back(arith::hex_exact(v));
   return out;
 }
@@ -135,7 +135,8 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
                   std::to_string(req.start->second) + ": " + (cand.converged ? "converged" : cand.note));
   } else {
     cand = candidate::continuation(make, candidate::poiseuille(make(0.0), 24), 0.0, Rmid, req.max_modes, nullptr);
-    log.push_back("candidate by continuation from R = 0 (type I): " + std::string(cand.converged ? "converged" : cand.note));
+    log.push_back("candidate by continuation from R = 0 (type I): " +
+                  std::string(cand.converged ? "converged" : cand.note));
   }
   if (!cand.converged) {
     CertifyOutcome out;
@@ -253,7 +254,8 @@ CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
     for (const auto& h : candidate_hex) {
       const Im v = arith::from_decimal<Im>(h);
       if (v.lower() != v.upper())
-        throw std::invalid_argument("candidate coefficient '" + h + "' is not exact at " + std::to_string(precision_bits) + " bits");
+        throw std::invalid_argument("candidate coefficient '" + h + "' is not exact at " +
+                                    std::to_string(precision_bits) + " bits");
       x.push_back(v.lower());
     }
     out = prove_mpfr(R_lo, R_hi, x, precision_bits);

@@ -15,10 +15,10 @@ namespace porecert::proof {
 
 struct CertifyRequest {
   std::string R_lo, R_hi;                          // decimal strings; equal for a point R
-  std::string branch = "I";                         // "I" (continuation from R = 0) or "" with start
+  std::string branch = "I";                        // "I" (continuation from R = 0) or "" with start
   std::optional<std::pair<double, double>> start;  // shooting guess (f'(0), f'''(0))
-  int precision_bits = 0;                           // 0: automatic (double first, then MPFR)
-  int modes = 0;                                    // 0: automatic
+  int precision_bits = 0;                          // 0: automatic (double first, then MPFR)
+  int modes = 0;                                   // 0: automatic
   int max_modes = 3000;
   int max_precision_bits = 1024;
   // With automatic precision: when a value enclosure is relatively wider than this after a double
@@ -36,7 +36,7 @@ struct CertifyOutcome {
   std::string failure;
   std::vector<std::string> log;  // attempts and remedies, in order
   int modes = 0;
-  int precision_bits = 53;       // 53: double intervals; else MPFR bits
+  int precision_bits = 53;  // 53: double intervals; else MPFR bits
   double Y0 = 0, Z0 = 0, Z1 = 0, Z2 = 0, A_norm = 0;
   double existence_radius = 0, uniqueness_radius = 0;
   std::array<double, 4> c3_error{};
@@ -44,7 +44,7 @@ struct CertifyOutcome {
   // Candidate, exactly: hex strings of the unknown layout [f'(0), K, u_0 .. u_{N-1}].
   std::vector<std::string> candidate_hex;
   double seconds = 0;
-  Structure structure;  // certified sign structure and branch label (when certified)
+  Structure structure;                        // certified sign structure and branch label (when certified)
   arith::Id fp0_id, K_id, fpp1_id, fppp0_id;  // the value enclosures as double intervals
 };
 

@@ -237,8 +237,10 @@ DirectResult certify_direct(const Id& R, const DirectOptions& opt) {
     ineq = inequalities_at(absR, r, c, w);
   } else if (f.ok) {
     std::vector<double> tries;
-    if (f.lo > 0) tries.push_back(std::min(f.lo * (1 + 1e-9), f.hi));
-    else tries.push_back(0);
+    if (f.lo > 0)
+      tries.push_back(std::min(f.lo * (1 + 1e-9), f.hi));
+    else
+      tries.push_back(0);
     for (double t : {1e-6, 1e-3, 0.1, 0.5})
       if (f.hi < kInf) tries.push_back(f.lo + (f.hi - f.lo) * t);
     for (double t : tries) {
@@ -361,8 +363,10 @@ nlohmann::json to_json(const DirectResult& r) {
   cst["M"] = pair_json(r.M);
   cst["B"] = pair_json(r.B);
   cst["meaning"] =
-      "beta_k = sup_eta int |d^k G/d eta^k| ds; v = G N(phi) = (-eta^7 + 3 eta^3 - 2 eta)/280, v_sup_k = ||v^(k)||_inf; "
-      "L = sup_eta(|phi|/w_3 + |phi'|/w_2 + |phi''|/w_1 + |phi'''|/w_0); M = 1/(w_0 w_3) + 1/(w_1 w_2); B = max_k w_k beta_k";
+      "beta_k = sup_eta int |d^k G/d eta^k| ds; v = G N(phi) = (-eta^7 + 3 eta^3 - 2 eta)/280, v_sup_k = "
+      "||v^(k)||_inf; "
+      "L = sup_eta(|phi|/w_3 + |phi'|/w_2 + |phi''|/w_1 + |phi'''|/w_0); M = 1/(w_0 w_3) + 1/(w_1 w_2); B = max_k w_k "
+      "beta_k";
   j["constants"] = cst;
   j["docs"] = "docs/method.md, section 'Green's function and the direct method', equations D1-D12";
   if (!r.certified) {
@@ -386,7 +390,8 @@ nlohmann::json to_json(const DirectResult& r) {
   j["error_bounds_meaning"] = "entry k bounds ||f^(k) - phi^(k)||_inf (= r / w_k, rounded up), k = 0..3";
   j["error_bounds_first_order"] = eb1;
   j["error_bounds_first_order_meaning"] =
-      "entry k bounds ||f^(k) - phi^(k) - R v^(k)||_inf (<= |R| beta_k (L r + M r^2), rounded up), for every R in the interval";
+      "entry k bounds ||f^(k) - phi^(k) - R v^(k)||_inf (<= |R| beta_k (L r + M r^2), rounded up), for every R in the "
+      "interval";
   json vals;
   for (const auto& x : r.values) vals[x.name] = pair_json(x.enclosure);
   j["values"] = vals;
@@ -394,7 +399,8 @@ nlohmann::json to_json(const DirectResult& r) {
       "enclosures valid for every R in the interval: phi's values widened by error_bounds, intersected with "
       "phi + R v widened by error_bounds_first_order; K = f'''(0) + R f'(0)^2";
   j["uniqueness"] =
-      "For every R in the interval there is exactly one solution f of Berman's problem with ||f - phi|| <= existence_radius "
+      "For every R in the interval there is exactly one solution f of Berman's problem with ||f - phi|| <= "
+      "existence_radius "
       "in the weighted C^3 norm of 'space'; it is also the only solution with ||f - phi|| <= uniqueness_radius "
       "(T is a contraction on that larger ball). Solutions outside that C^3 ball are not excluded.";
   return j;
@@ -409,9 +415,7 @@ int direct_exit_code(const nlohmann::json& certificate) {
 }
 
 namespace {
-Id side_interval(int side, const Id& x) {
-  return side > 0 ? Id(0, x.upper()) : Id(-x.upper(), 0);
-}
+Id side_interval(int side, const Id& x) { return side > 0 ? Id(0, x.upper()) : Id(-x.upper(), 0); }
 // Largest decimal with `digits` significant digits that is ≤ x (x > 0), as a string.
 std::string decimal_floor(double x, int digits, long step_down) {
   const int e = static_cast<int>(std::floor(std::log10(x)));

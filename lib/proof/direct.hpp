@@ -7,11 +7,10 @@
 // All arithmetic on the proof path is outward-rounded double intervals (arith::Id).
 #pragma once
 #include <array>
+#include <nlohmann/json.hpp>
 #include <optional>
 #include <string>
 #include <vector>
-
-#include <nlohmann/json.hpp>
 
 #include "arith/interval.hpp"
 
@@ -32,10 +31,10 @@ struct DirectOptions {
 
 // One inequality of the proof, "lhs ≤ rhs" (or "<" for contractions), over every R in the interval.
 struct Inequality {
-  std::string name;       // e.g. "self-map k=0"
-  std::string statement;  // the formula, with its equation number in docs/method.md
-  arith::Id lhs, rhs, margin;  // margin = rhs − lhs (enclosures)
-  bool strict = false;         // "<" rather than "≤"
+  std::string name;                       // e.g. "self-map k=0"
+  std::string statement;                  // the formula, with its equation number in docs/method.md
+  arith::Id lhs, rhs, margin;             // margin = rhs − lhs (enclosures)
+  bool strict = false;                    // "<" rather than "≤"
   arith::Tri holds = arith::Tri::unsure;  // yes: proved; no: proved false; unsure: not decided
 };
 

@@ -29,11 +29,16 @@ using RU = arith::rounded_nearest_outward;
 // η^n, n ≤ 3, as a Chebyshev series on [0,1]: η = (1 + x)/2 expanded, exact dyadic coefficients.
 IdSeries mono(int n) {
   switch (n) {
-    case 0: return {Id(1)};
-    case 1: return {Id(0.5), Id(0.5)};
-    case 2: return {Id(0.375), Id(0.5), Id(0.125)};
-    case 3: return {Id(0.3125), Id(0.46875), Id(0.1875), Id(0.03125)};
-    default: throw std::invalid_argument("mono: degree > 3");
+    case 0:
+      return {Id(1)};
+    case 1:
+      return {Id(0.5), Id(0.5)};
+    case 2:
+      return {Id(0.375), Id(0.5), Id(0.125)};
+    case 3:
+      return {Id(0.3125), Id(0.46875), Id(0.1875), Id(0.03125)};
+    default:
+      throw std::invalid_argument("mono: degree > 3");
   }
 }
 // Σ a_j η^j for j = 0..3.
@@ -138,9 +143,10 @@ std::vector<Inequality> inequalities_at(const Consts& c, double rho) {
   const Id r(rho);
   for (int k = 0; k < 4; ++k) {
     const std::string ks = std::to_string(k);
-    out.push_back(make_ineq("self-map k=" + ks,
-                            "w_" + ks + " (delta_" + ks + " + |R| beta_" + ks + " (Lambda + 2 M rho) rho) <= rho   (D20)",
-                            c.w[k] * (c.delta[k] + c.absR * c.beta[k] * (c.Lam + Id(2) * c.M * r) * r), r, false));
+    out.push_back(
+        make_ineq("self-map k=" + ks,
+                  "w_" + ks + " (delta_" + ks + " + |R| beta_" + ks + " (Lambda + 2 M rho) rho) <= rho   (D20)",
+                  c.w[k] * (c.delta[k] + c.absR * c.beta[k] * (c.Lam + Id(2) * c.M * r) * r), r, false));
   }
   out.push_back(make_ineq("contraction on B(f~, rho)", "kappa(rho) = |R| B (Lambda + 2 M rho) < 1   (D21)",
                           kappa_at(c, rho), Id(1), true));
@@ -179,7 +185,8 @@ DirectCandidateResult certify_chain(const Chain& Fb, const Id& R, const DirectCa
   const auto& w = opt.weights;
   for (int k = 0; k < 4; ++k)
     if (!(std::isfinite(w[k]) && w[k] > 0))
-      throw std::invalid_argument("weights: w_" + std::to_string(k) + " = " + fmt_g(w[k]) + " must be a positive finite number");
+      throw std::invalid_argument("weights: w_" + std::to_string(k) + " = " + fmt_g(w[k]) +
+                                  " must be a positive finite number");
   if (opt.radius && !(std::isfinite(*opt.radius) && *opt.radius >= 0))
     throw std::invalid_argument("radius: " + fmt_g(*opt.radius) + " must be a finite number >= 0");
   for (const auto& s : Fb)
@@ -196,8 +203,8 @@ DirectCandidateResult certify_chain(const Chain& Fb, const Id& R, const DirectCa
   const Id a0 = -e00, a2 = -e20 / Id(2);
   const Id A = -e01 - a0 - a2, Bv = -e11 - Id(2) * a2;
   const Id a3 = (Bv - A) / Id(2), a1 = A - a3;
-  const Chain P = {cubic(a0, a1, a2, a3), cubic(a1, Id(2) * a2, Id(3) * a3, Id(0)), cubic(Id(2) * a2, Id(6) * a3, Id(0), Id(0)),
-                   IdSeries{Id(6) * a3}};
+  const Chain P = {cubic(a0, a1, a2, a3), cubic(a1, Id(2) * a2, Id(3) * a3, Id(0)),
+                   cubic(Id(2) * a2, Id(6) * a3, Id(0), Id(0)), IdSeries{Id(6) * a3}};
   Chain F;
   for (int k = 0; k < 4; ++k) {
     F[k] = cheb::add(Fb[k], P[k]);
@@ -309,8 +316,8 @@ DirectCandidateResult certify_chain(const Chain& Fb, const Id& R, const DirectCa
     } else if (rv < kInf && rv > rho) {
       for (double t : {1 - 1e-12, 1 - 1e-9, 1 - 1e-6, 1 - 1e-3, 0.9, 0.5}) {
         const double ru = rho + (rv - rho) * t;
-        auto q = make_ineq("contraction on B(f~, rho') (uniqueness)", "kappa(rho') = |R| B (Lambda + 2 M rho') < 1   (D22)",
-                           kappa_at(c, ru), Id(1), true);
+        auto q = make_ineq("contraction on B(f~, rho') (uniqueness)",
+                           "kappa(rho') = |R| B (Lambda + 2 M rho') < 1   (D22)", kappa_at(c, ru), Id(1), true);
         if (q.holds == Tri::yes) {
           res.uniqueness_radius = ru;
           ineq.push_back(q);
@@ -446,8 +453,9 @@ C3Uniqueness c3_uniqueness_from_newton(const CertifyOutcome& o, const Id& R) {
                 fmt_g(d.weights[0]).c_str(), fmt_g(d.weights[1]).c_str(), fmt_g(d.weights[2]).c_str(),
                 fmt_g(d.weights[3]).c_str(), dec_hi(Id(d.radius)).c_str());
   u.statement = buf;
-  u.statement += u.newton_solution_is_it ? " The Newton-certified solution lies in that ball (D25), so it is that solution."
-                                         : " Whether the Newton-certified solution lies in that ball was not decided (D25).";
+  u.statement += u.newton_solution_is_it
+                     ? " The Newton-certified solution lies in that ball (D25), so it is that solution."
+                     : " Whether the Newton-certified solution lies in that ball was not decided (D25).";
   return u;
 }
 
@@ -462,7 +470,10 @@ nlohmann::json to_json(const C3Uniqueness& u) {
   j["statement"] = u.statement;
   nlohmann::json nb = nlohmann::json::array();
   for (const auto& q : u.newton_in_ball)
-    nb.push_back({{"name", q.name}, {"statement", q.statement}, {"lhs", pair_json(q.lhs)}, {"rhs", pair_json(q.rhs)},
+    nb.push_back({{"name", q.name},
+                  {"statement", q.statement},
+                  {"lhs", pair_json(q.lhs)},
+                  {"rhs", pair_json(q.rhs)},
                   {"holds", arith::to_string(q.holds)}});
   j["newton_solution_in_ball"] = nb;
   return j;

@@ -7,11 +7,10 @@
 // double intervals (arith::Id).
 #pragma once
 #include <array>
+#include <nlohmann/json.hpp>
 #include <optional>
 #include <string>
 #include <vector>
-
-#include <nlohmann/json.hpp>
 
 #include "arith/cheb.hpp"
 #include "arith/interval.hpp"
@@ -73,7 +72,7 @@ nlohmann::json to_json(const DirectCandidateResult& r);
 struct C3Uniqueness {
   bool attempted = false;  // false: the Newton outcome was not certified (nothing run)
   DirectCandidateResult direct;
-  std::string statement;   // the C³-ball uniqueness statement (or why there is none)
+  std::string statement;  // the C³-ball uniqueness statement (or why there is none)
   // w_k (c3_error_k + ‖p⁽ᵏ⁾‖∞) ≤ ρ' for k = 0..3 (D25): the Newton-certified solution lies in B(f̃, ρ'),
   // so it is the one solution there.
   std::vector<Inequality> newton_in_ball;

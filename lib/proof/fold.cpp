@@ -261,8 +261,8 @@ FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
   out.precision_bits = bits;
   out.candidate_hex.clear();
   for (const auto& v : xm) out.candidate_hex.push_back(arith::hex_exact(v));
-  out.log.push_back("MPFR " + std::to_string(bits) + " bits (refined, last correction residual " + fmt(last) + "): " +
-                    (out.certified ? "certified, R* width " + fmt(arith::width_up(out.R)) : out.failure));
+  out.log.push_back("MPFR " + std::to_string(bits) + " bits (refined, last correction residual " + fmt(last) +
+                    "): " + (out.certified ? "certified, R* width " + fmt(arith::width_up(out.R)) : out.failure));
   return finish();
 }
 

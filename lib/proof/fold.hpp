@@ -29,8 +29,8 @@ int modes_of(const std::vector<S>& x) {
 
 template <class S>
 struct Value {
-  std::array<S, 4> rows;     // (F2), (F3), (F5), (F6)
-  cheb::Series<S> e1, e4;    // (F1), (F4): all coefficients, no truncation
+  std::array<S, 4> rows;   // (F2), (F3), (F5), (F6)
+  cheb::Series<S> e1, e4;  // (F1), (F4): all coefficients, no truncation
 };
 
 // D^0..D^3 of g and of v (F1), (F4).
@@ -137,15 +137,15 @@ struct FoldBounds {
 template <arith::Interval I>
 struct FoldResult {
   bool certified = false;
-  std::string failure;            // the inequality that failed and by how much (empty if certified)
+  std::string failure;  // the inequality that failed and by how much (empty if certified)
   FoldBounds bounds;
-  double existence_radius = 0;    // r₋ rounded up (ball in X, docs/fold.md (F8))
-  double uniqueness_radius = 0;   // r₊ rounded down
+  double existence_radius = 0;   // r₋ rounded up (ball in X, docs/fold.md (F8))
+  double uniqueness_radius = 0;  // r₊ rounded down
   int modes = 0;
   // Enclosures of the true zero's components (valid only when certified):
-  I R;                            // the fold R*
-  I fp0, fppp0, fpp1, K;          // f'(0) = a/R, f'''(0) = g'''(0)/R, f''(1) = g''(1)/R, K = K̃/R at R*
-  I kappa;                        // κ of (F4)
+  I R;                    // the fold R*
+  I fp0, fppp0, fpp1, K;  // f'(0) = a/R, f'''(0) = g'''(0)/R, f''(1) = g''(1)/R, K = K̃/R at R*
+  I kappa;                // κ of (F4)
 };
 
 // Encloses everything in FoldResult for the zero of (F1)-(F6) near the candidate xbar (layout
@@ -163,8 +163,8 @@ struct FoldOutcome {
   FoldBounds bounds;
   double existence_radius = 0, uniqueness_radius = 0;
   int modes = 0, precision_bits = 53;
-  arith::Id R, fp0, fppp0, fpp1, K, kappa;  // outward double hulls
-  std::string R_lo, R_hi;                   // outward decimal strings of the R* enclosure
+  arith::Id R, fp0, fppp0, fpp1, K, kappa;           // outward double hulls
+  std::string R_lo, R_hi;                            // outward decimal strings of the R* enclosure
   std::array<std::array<std::string, 2>, 4> values;  // f'(0), f'''(0), f''(1), K as outward decimals
   std::vector<std::string> log;
   double seconds = 0;

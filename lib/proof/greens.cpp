@@ -280,9 +280,8 @@ I greens_abs_integral_derivative(int k, double lo, double hi) {
 }
 
 template <Interval I>
-SupEnclosure<I> sup_by_subdivision(const std::function<I(double)>& point,
-                                   const std::function<I(double, double)>& deriv, double lo, double hi,
-                                   double rel_tol, std::size_t max_boxes, int initial_boxes) {
+SupEnclosure<I> sup_by_subdivision(const std::function<I(double)>& point, const std::function<I(double, double)>& deriv,
+                                   double lo, double hi, double rel_tol, std::size_t max_boxes, int initial_boxes) {
   assert(lo <= hi && initial_boxes >= 1 && rel_tol >= 0);
   struct Box {
     double a, b, m;
@@ -360,8 +359,8 @@ std::array<SupEnclosure<I>, 4> greens_beta_detailed(double rel_tol) {
   std::array<SupEnclosure<I>, 4> out;
   for (int k = 0; k < 4; ++k) {
     out[k] = sup_by_subdivision<I>([k](double x) { return greens_abs_integral<I>(k, x); },
-                                   [k](double a, double b) { return greens_abs_integral_derivative<I>(k, a, b); },
-                                   0.0, 1.0, rel_tol);
+                                   [k](double a, double b) { return greens_abs_integral_derivative<I>(k, a, b); }, 0.0,
+                                   1.0, rel_tol);
   }
   return out;
 }
@@ -383,17 +382,17 @@ I greens_beta0_argmax() {
   return (I(1) + bn::sqrt(I(33))) / I(16);
 }
 
-#define PORECERT_GREENS_INSTANTIATE(I)                                                                         \
-  template I greens_piece<I>(int, bool, const I&, const I&);                                                   \
-  template I greens_eval<I>(int, const I&, const I&);                                                          \
-  template I greens_abs_integral<I>(int, double);                                                              \
-  template I greens_abs_integral_derivative<I>(int, double, double);                                           \
-  template SupEnclosure<I> sup_by_subdivision<I>(const std::function<I(double)>&,                              \
-                                                 const std::function<I(double, double)>&, double, double,      \
-                                                 double, std::size_t, int);                                    \
-  template std::array<SupEnclosure<I>, 4> greens_beta_detailed<I>(double);                                     \
-  template std::array<I, 4> greens_beta<I>(double);                                                            \
-  template std::array<I, 4> greens_beta_closed_form<I>();                                                      \
+#define PORECERT_GREENS_INSTANTIATE(I)                                                                            \
+  template I greens_piece<I>(int, bool, const I&, const I&);                                                      \
+  template I greens_eval<I>(int, const I&, const I&);                                                             \
+  template I greens_abs_integral<I>(int, double);                                                                 \
+  template I greens_abs_integral_derivative<I>(int, double, double);                                              \
+  template SupEnclosure<I> sup_by_subdivision<I>(const std::function<I(double)>&,                                 \
+                                                 const std::function<I(double, double)>&, double, double, double, \
+                                                 std::size_t, int);                                               \
+  template std::array<SupEnclosure<I>, 4> greens_beta_detailed<I>(double);                                        \
+  template std::array<I, 4> greens_beta<I>(double);                                                               \
+  template std::array<I, 4> greens_beta_closed_form<I>();                                                         \
   template I greens_beta0_argmax<I>();
 
 PORECERT_GREENS_INSTANTIATE(Id)

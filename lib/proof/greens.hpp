@@ -56,9 +56,9 @@ I greens_abs_integral_derivative(int k, double lo, double hi);
 // Result of a rigorous supremum over an interval of η.
 template <arith::Interval I>
 struct SupEnclosure {
-  I value;                  // contains sup F: lower end = a computed value, upper end = max box bound
-  double argmax = 0;        // the point whose value gave the lower end
-  std::size_t boxes = 0;    // boxes whose bound was computed
+  I value;                     // contains sup F: lower end = a computed value, upper end = max box bound
+  double argmax = 0;           // the point whose value gave the lower end
+  std::size_t boxes = 0;       // boxes whose bound was computed
   bool tolerance_met = false;  // width(value) ≤ rel_tol·|lower| reached before max_boxes
 };
 
@@ -68,9 +68,9 @@ struct SupEnclosure {
 // the larger end when D has a sign. The result always contains the sup; tolerance_met says whether
 // the width target was reached (else the enclosure is wider, never wrong).
 template <arith::Interval I>
-SupEnclosure<I> sup_by_subdivision(const std::function<I(double)>& point,
-                                   const std::function<I(double, double)>& deriv, double lo, double hi,
-                                   double rel_tol, std::size_t max_boxes = 200000, int initial_boxes = 16);
+SupEnclosure<I> sup_by_subdivision(const std::function<I(double)>& point, const std::function<I(double, double)>& deriv,
+                                   double lo, double hi, double rel_tol, std::size_t max_boxes = 200000,
+                                   int initial_boxes = 16);
 
 // β_k enclosures (eq. G5) with target relative width rel_tol (≥ 1e-15 is reachable in double; the
 // MPFR version reaches smaller). Each entry contains β_k even if the target was not met.

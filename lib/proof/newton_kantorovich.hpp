@@ -25,10 +25,10 @@ struct NKBounds {
 template <arith::Interval I>
 struct NKResult {
   bool certified = false;
-  std::string failure;      // the inequality that failed and by how much (empty if certified)
+  std::string failure;  // the inequality that failed and by how much (empty if certified)
   NKBounds bounds;
-  double existence_radius = 0;   // r₋ rounded up (ball in X)
-  double uniqueness_radius = 0;  // r₊ rounded down; +inf when Z₂ = 0
+  double existence_radius = 0;       // r₋ rounded up (ball in X)
+  double uniqueness_radius = 0;      // r₊ rounded down; +inf when Z₂ = 0
   std::array<double, 4> c3_error{};  // sup|f^{(k)} − f̄^{(k)}| ≤ c3_error[k], k = 0..3, rounded up
   // Enclosures of the true solution's values (valid only when certified).
   I fp0, fppp0, fpp1, K;

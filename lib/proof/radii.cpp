@@ -50,7 +50,8 @@ RadiiVerdict radii_polynomial(double Y0, double Z0, double Z1, double Z2) {
   const Id gap = Id(1) - Id(Z);
   if (!(gap.lower() > 0)) {
     v.failure = "Z = max(Z0, Z1) = " + short_number(Z) + " must be < 1 (short by " + short_number(Z - 1) +
-                "); Z0 = " + short_number(Z0) + ", Z1 = " + short_number(Z1) + (Z1 >= Z0 ? " (more modes help Z1)" : "");
+                "); Z0 = " + short_number(Z0) + ", Z1 = " + short_number(Z1) +
+                (Z1 >= Z0 ? " (more modes help Z1)" : "");
     return v;
   }
   const Id disc = gap * gap - Id(4) * Id(Z2) * Id(Y0);

@@ -22,9 +22,9 @@ std::string short_number(double v);
 
 struct RadiiVerdict {
   bool certified = false;
-  std::string failure;          // the inequality that failed and by how much
-  double existence_radius = 0;  // r with p(r) < 0 confirmed in intervals, rounded up
-  double uniqueness_radius = 0; // lower bound of the larger root; +inf when Z2 = 0
+  std::string failure;           // the inequality that failed and by how much
+  double existence_radius = 0;   // r with p(r) < 0 confirmed in intervals, rounded up
+  double uniqueness_radius = 0;  // lower bound of the larger root; +inf when Z2 = 0
 };
 
 // p(r) = Z2 r² − (1 − Z) r + Y0 with Z = max(Z0, Z1), all upper bounds (M3.2).

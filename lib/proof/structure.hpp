@@ -24,11 +24,11 @@ struct SignCover {
 SignCover sign_cover(const cheb::Series<arith::Id>& s, double err, double a, double b, double tol = 1e-8);
 
 struct Structure {
-  std::string label;   // "I", "II", "III" or "unclassified"
-  std::string reason;  // which certified properties the label rests on
+  std::string label;                         // "I", "II", "III" or "unclassified"
+  std::string reason;                        // which certified properties the label rests on
   arith::Tri reversal = arith::Tri::unsure;  // f' < 0 somewhere on (0,1)?
-  std::vector<Span> reversal_where;           // f' surely < 0 on these
-  std::vector<Span> f_negative;               // f surely < 0 on these
+  std::vector<Span> reversal_where;          // f' surely < 0 on these
+  std::vector<Span> f_negative;              // f surely < 0 on these
 };
 
 // Labels (docs/branches.md): type I: f' > 0 on [0,1) and f'' < 0 on (0,1] (axial velocity largest

@@ -13,15 +13,14 @@
 
 #include <algorithm>
 #include <array>
+#include <boost/multiprecision/cpp_bin_float.hpp>
+#include <boost/numeric/odeint.hpp>
 #include <cmath>
 #include <cstddef>
 #include <ios>
 #include <stdexcept>
 #include <string>
 #include <utility>
-
-#include <boost/multiprecision/cpp_bin_float.hpp>
-#include <boost/numeric/odeint.hpp>
 
 namespace berman_ref {
 
@@ -108,12 +107,12 @@ NewtonStep<T> newton_step(const State<T>& y1) {
 
 template <class T>
 struct ShootSolution {
-  T R, a, b;   // a = f'(0), b = f'''(0)
-  T fpp1;      // f''(1), linearly corrected to the final (a, b)
-  T K;         // f'''(0) + R f'(0)^2
-  int steps = 0;               // steps of the accepted integration
-  int newton_iterations = 0;   // integrations used by Newton in total
-  double error_estimate = 0;   // |da| + |db| of the half-step check (0 when not checked)
+  T R, a, b;                  // a = f'(0), b = f'''(0)
+  T fpp1;                     // f''(1), linearly corrected to the final (a, b)
+  T K;                        // f'''(0) + R f'(0)^2
+  int steps = 0;              // steps of the accepted integration
+  int newton_iterations = 0;  // integrations used by Newton in total
+  double error_estimate = 0;  // |da| + |db| of the half-step check (0 when not checked)
 };
 
 // Newton at fixed R with integrator(a, b) -> state at eta = 1; stops when |da| + |db| <= tol (1 + |a| + |b|).
@@ -136,10 +135,10 @@ ShootSolution<T> newton_shoot(const T& R, T a, T b, Integrator&& integrator, con
 }
 
 struct ShootOptions {
-  int steps = 32;               // initial constant steps on [0, 1] (enough for |R| <= 50)
-  int max_steps = 4096;         // give up beyond this
-  bool self_check = true;       // verify with one Newton correction at half the step
-  double check_tol = 1e-42;     // accepted size of that correction (relative to 1 + |a| + |b|)
+  int steps = 32;            // initial constant steps on [0, 1] (enough for |R| <= 50)
+  int max_steps = 4096;      // give up beyond this
+  bool self_check = true;    // verify with one Newton correction at half the step
+  double check_tol = 1e-42;  // accepted size of that correction (relative to 1 + |a| + |b|)
 };
 
 // High-precision Newton from (a, b), with the half-step self-check of the header comment.
@@ -245,14 +244,8 @@ struct BermanReference {
 };
 
 inline BermanReference make_reference(const ShootSolution<Real>& s) {
-  return {to_digits(s.a),
-          to_digits(s.b),
-          to_digits(s.fpp1),
-          to_digits(s.K),
-          static_cast<double>(s.a),
-          static_cast<double>(s.b),
-          static_cast<double>(s.fpp1),
-          static_cast<double>(s.K)};
+  return {to_digits(s.a),           to_digits(s.b),           to_digits(s.fpp1),           to_digits(s.K),
+          static_cast<double>(s.a), static_cast<double>(s.b), static_cast<double>(s.fpp1), static_cast<double>(s.K)};
 }
 
 }  // namespace berman_ref
