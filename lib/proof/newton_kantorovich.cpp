@@ -30,6 +30,7 @@ struct Piece {
   std::vector<double> g_abs;  // |g_a| rounded up
   int m;
   cheb::Series<Id> g;
+  Id c;
 };
 
 std::vector<Piece> pieces_of(const model::Model<Id>& m, const std::array<cheb::Series<Id>, 4>& Dbar) {
@@ -41,11 +42,11 @@ std::vector<Piece> pieces_of(const model::Model<Id>& m, const std::array<cheb::S
   };
   for (const auto& t : m.lin) {
     const cheb::Series<Id> g = t.weight.empty() ? cheb::Series<Id>{Id(1)} : t.weight;
-    out.push_back({arith::mag_up(t.coef), absvec(g), 3 - t.d, g});
+    out.push_back({arith::mag_up(t.coef), absvec(g), 3 - t.d, g, t.coef});
   }
   for (const auto& t : m.quad) {
-    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d1]), 3 - t.d2, Dbar[t.d1]});
-    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d2]), 3 - t.d1, Dbar[t.d2]});
+    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d1]), 3 - t.d2, Dbar[t.d1], t.coef});
+    out.push_back({arith::mag_up(t.coef), absvec(Dbar[t.d2]), 3 - t.d1, Dbar[t.d2], t.coef});
   }
   return out;
 }
@@ -91,6 +92,60 @@ Id to_id(const I& x) {
   return arith::to_id(x);
 }
 
+
+// Functionals of tail modes through which the finite block sees them (docs/method.md (M3.9)):
+// kind (m, i ≥ 0): coefficient i of the low part of J^m T_l; kind (m, −1): (J^m T_l)(1).
+struct TailFunctionals {
+  int N = 0, Lmax = 0;
+  std::vector<std::array<int, 2>> kind;
+  std::vector<std::vector<Id>> val;  // val[q][l − N], N ≤ l < Lmax
+  std::vector<double> sup_up;        // ≥ sup_{l ≥ N} |φ_q(l)|
+};
+
+TailFunctionals tail_functionals(int N, int Lmax, const std::vector<std::array<int, 2>>& kinds) {
+  TailFunctionals tf;
+  tf.N = N;
+  tf.Lmax = Lmax;
+  tf.kind = kinds;
+  tf.val.assign(kinds.size(), std::vector<Id>(Lmax - N, Id(0)));
+  tf.sup_up.assign(kinds.size(), 0.0);
+  for (int l = N; l < Lmax; ++l) {
+    cheb::Series<Id> s(l + 1, Id(0));
+    s[l] = Id(1);
+    for (int m = 1; m <= 3; ++m) {
+      s = cheb::antiderivative(s, Id(0));
+      for (std::size_t q = 0; q < kinds.size(); ++q) {
+        if (kinds[q][0] != m) continue;
+        const Id v = kinds[q][1] >= 0 ? s[kinds[q][1]] : cheb::value_at_1(s);
+        tf.val[q][l - N] = v;
+        tf.sup_up[q] = std::max(tf.sup_up[q], arith::mag_up(v));
+      }
+    }
+  }
+  const JBounds jb = j_tail_bounds(Lmax);  // beyond the table: (M3.5)
+  for (std::size_t q = 0; q < kinds.size(); ++q) {
+    const int m = kinds[q][0];
+    tf.sup_up[q] = std::max(tf.sup_up[q], kinds[q][1] >= 0 ? jb.low[m] : up_add(jb.band[m], jb.low[m]));
+  }
+  return tf;
+}
+
+// Φ_q(y) = Σ_{l ≥ N} φ_q(l) y_l for the tail part of the series y (enclosure; modes beyond the
+// table are bounded by sup|φ_q|).
+template <arith::Interval I>
+I apply_functional(const TailFunctionals& tf, std::size_t q, const cheb::Series<I>& y) {
+  I acc(0);
+  double rest = 0;
+  for (int l = tf.N; l < static_cast<int>(y.size()); ++l) {
+    if (l < tf.Lmax)
+      acc = acc + arith::from_id<I>(tf.val[q][l - tf.N]) * y[l];
+    else
+      rest = up_add(rest, arith::mag_up(y[l]));
+  }
+  if (rest > 0) acc = acc + I(-up_mul(rest, tf.sup_up[q]), up_mul(rest, tf.sup_up[q]));
+  return acc;
+}
+
 }  // namespace
 
 double tail_estimate(const model::Model<Id>& m, const std::vector<Id>& xbar, long N) {
@@ -120,18 +175,64 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
   for (const I& v : xbar) xd.push_back(to_id(v));
   const auto Dbar = model::lift(model::constants_of(md, xd), model::u_of(md, xd));
 
-  // ---- DF(x̄): finite block as midpoint-radius, spill below mode N as column norms ----
+  // ---- How tail modes reach the finite block: functionals Φ_q and directions W_q (M3.9) ----
+  const auto pieces = pieces_of(md, Dbar);
+  int glen = 1;
+  for (const Piece& p : pieces) glen = std::max(glen, static_cast<int>(p.g.size()));
+  const int Kx = N + glen + 4;  // from Kx on, band parts of tail columns miss the finite block
+  std::vector<std::array<int, 2>> kinds;
+  {
+    bool low[4] = {false, false, false, false}, row[4] = {false, false, false, false};
+    for (const Piece& p : pieces) low[p.m] = true;
+    for (const auto& r : md.rows)
+      for (int d = 0; d < 3; ++d)
+        if (!(r.coef[d].lower() == 0 && r.coef[d].upper() == 0)) row[3 - d] = true;
+    for (int m = 1; m <= 3; ++m)
+      if (low[m])
+        for (int i = 0; i < m; ++i) kinds.push_back({m, i});
+    for (int m = 1; m <= 3; ++m)
+      if (row[m]) kinds.push_back({m, -1});
+  }
+  const TailFunctionals tf = tail_functionals(N, Kx + glen + 8, kinds);
+  const std::size_t nq = kinds.size();
+  std::vector<std::vector<Id>> W(nq, std::vector<Id>(n, Id(0)));
+  for (std::size_t q = 0; q < nq; ++q) {
+    const int m = kinds[q][0], i = kinds[q][1];
+    if (i < 0) {
+      for (int r = 0; r < ns; ++r) W[q][r] = md.rows[r].coef[3 - m];
+      continue;
+    }
+    cheb::Series<Id> t(i + 1, Id(0));
+    t[i] = Id(1);
+    for (const Piece& p : pieces) {
+      if (p.m != m) continue;
+      const auto gt = model::product_sparse(p.g, t);
+      for (int j = 0; j < N && j < static_cast<int>(gt.size()); ++j) W[q][ns + j] = W[q][ns + j] + p.c * gt[j];
+    }
+  }
+  // Corrected top part of a column: Π_top col − Σ_q W_q Φ_q(Π_tail col) (the A₁₂ block of (M3.9)).
+  auto corrected_top = [&](const model::Value<Id>& col, std::vector<Id>& top) {
+    top.assign(n, Id(0));
+    for (int i = 0; i < ns; ++i) top[i] = col.rows[i];
+    for (int k = 0; k < N && k < static_cast<int>(col.fun.size()); ++k) top[ns + k] = col.fun[k];
+    for (std::size_t q = 0; q < nq; ++q) {
+      const Id phi = apply_functional(tf, q, col.fun);
+      if (phi.lower() == 0 && phi.upper() == 0) continue;
+      for (int i = 0; i < n; ++i)
+        if (!(W[q][i].lower() == 0 && W[q][i].upper() == 0)) top[i] = top[i] - W[q][i] * phi;
+    }
+  };
+
+  // ---- DF(x̄) with the correction: finite block as midpoint-radius, spill below as norms ----
   MidRad D{MatD::Zero(n, n), MatD::Zero(n, n)};
   Eigen::VectorXd spill = Eigen::VectorXd::Zero(n);
-  for (int j = 0; j < n; ++j) {
-    const auto col = model::derivative_column(md, Dbar, j);
-    auto put = [&](int i, const Id& v) { put_entry(D, i, j, v); };
-    for (int i = 0; i < ns; ++i) put(i, col.rows[i]);
-    for (int k = 0; k < static_cast<int>(col.fun.size()); ++k) {
-      if (k < N)
-        put(ns + k, col.fun[k]);
-      else
-        spill(j) = up_add(spill(j), arith::mag_up(col.fun[k]));
+  {
+    std::vector<Id> top;
+    for (int j = 0; j < n; ++j) {
+      const auto col = model::derivative_column(md, Dbar, j);
+      corrected_top(col, top);
+      for (int i = 0; i < n; ++i) put_entry(D, i, j, top[i]);
+      for (int k = N; k < static_cast<int>(col.fun.size()); ++k) spill(j) = up_add(spill(j), arith::mag_up(col.fun[k]));
     }
   }
   const Eigen::PartialPivLU<MatD> lu(D.mid);
@@ -140,9 +241,16 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
     res.failure = "the finite part of DF(candidate) is numerically singular (no approximate inverse)";
     return res;
   }
-  res.bounds.A_norm = std::max(1.0, arith::operator_norm1_up(A));
+  // ‖A_N W_q‖, used for the tail columns beyond Kx and for ‖A‖.
+  std::vector<double> AW(nq, 0.0);
+  for (std::size_t q = 0; q < nq; ++q) AW[q] = apply_norm_up(A, W[q]);
+  {
+    double tail_col = 1;  // tail columns of A = [A_N, −A_N W Φ; 0, I]
+    for (std::size_t q = 0; q < nq; ++q) tail_col = up_add(tail_col, up_mul(AW[q], tf.sup_up[q]));
+    res.bounds.A_norm = std::max(tail_col, arith::operator_norm1_up(A));
+  }
 
-  // ---- Z0: columns of I − A DF on the finite directions, plus their spill (A = I there) ----
+  // ---- Z0: columns of I − A DF on the finite directions, plus their spill ----
   {
     const MidRad C = arith::product(A, D);
     const Eigen::VectorXd cols = arith::identity_defect_column_norms_up(C);
@@ -151,59 +259,31 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
     res.bounds.Z0 = z0;
   }
 
-  // ---- Z1: tail directions u = T_k, k ≥ N (docs/method.md (M3.6)-(M3.8)) ----
-  // k in [N, Kx): exact columns, so A_N sees the true finite-block part (keeps cancellation);
-  // k ≥ Kx: the band part no longer reaches the finite block, only the low part and the rows do.
+  // ---- Z1: tail directions u = T_k, k ≥ N (docs/method.md (M3.6)-(M3.9)) ----
   {
-    const auto pieces = pieces_of(md, Dbar);
-    int glen = 1;
-    for (const Piece& p : pieces) glen = std::max(glen, static_cast<int>(p.g.size()));
-    const int Kx = N + glen + 4;
     MidRad E{MatD::Zero(n, Kx - N), MatD::Zero(n, Kx - N)};
     Eigen::VectorXd spillE = Eigen::VectorXd::Zero(Kx - N);
+    std::vector<Id> top;
     for (int k = N; k < Kx; ++k) {
       const int c = k - N;
       const auto col = model::derivative_column(md, Dbar, ns + k);
-      auto put = [&](int i, const Id& v) { put_entry(E, i, c, v); };
-      for (int i = 0; i < ns; ++i) put(i, col.rows[i]);
-      for (int q = 0; q < static_cast<int>(col.fun.size()); ++q) {
-        if (q < N)
-          put(ns + q, col.fun[q]);
-        else
-          spillE(c) = up_add(spillE(c), arith::mag_up(q == k ? col.fun[q] - Id(1) : col.fun[q]));
-      }
+      corrected_top(col, top);
+      for (int i = 0; i < n; ++i) put_entry(E, i, c, top[i]);
+      for (int q = N; q < static_cast<int>(col.fun.size()); ++q)
+        spillE(c) = up_add(spillE(c), arith::mag_up(q == k ? col.fun[q] - Id(1) : col.fun[q]));
     }
     double z1a = 0;
     {
       const Eigen::VectorXd cn = arith::column_norms_up(arith::product(A, E));
       for (int c = 0; c < Kx - N; ++c) z1a = std::max(z1a, up_add(cn(c), spillE(c)));
     }
+    // k ≥ Kx: top part A_N W Φ(E T_k), ‖E T_k‖ ≤ Σ |c| ‖g‖ (b_m + l_m) at Kx.
     const JBounds jb = j_tail_bounds(Kx);
-    MatD w = MatD::Zero(n, 1);
-    for (int i = 0; i < ns; ++i) {
-      double s = 0;
-      for (int d = 0; d < 3; ++d)
-        s = up_add(s, up_mul(arith::mag_up(md.rows[i].coef[d]), up_add(jb.band[3 - d], jb.low[3 - d])));
-      w(i, 0) = s;
-    }
-    double z1b = 0;
-    {
-      const MatD Aw = arith::abs_product_up(A, w);
-      for (int i = 0; i < n; ++i) z1b = up_add(z1b, Aw(i, 0));
-    }
-    for (const Piece& p : pieces) {
-      z1b = up_add(z1b, up_mul(up_mul(p.c_abs, sum_up(p.g_abs)), up_add(jb.band[p.m], jb.low[p.m])));
-      double worst = 0;  // max_i ‖A_N Π(g T_i)‖ over the low modes i < m
-      for (int i = 0; i < p.m; ++i) {
-        cheb::Series<Id> t(i + 1, Id(0));
-        t[i] = Id(1);
-        const auto gt = model::product_sparse(p.g, t);
-        MidRad v{MatD::Zero(n, 1), MatD::Zero(n, 1)};
-        for (int q = 0; q < N && q < static_cast<int>(gt.size()); ++q) put_entry(v, ns + q, 0, gt[q]);
-        worst = std::max(worst, arith::column_norms_up(arith::product(A, v))(0));
-      }
-      z1b = up_add(z1b, up_mul(up_mul(p.c_abs, jb.low[p.m]), worst));
-    }
+    double et = 0;
+    for (const Piece& p : pieces)
+      et = up_add(et, up_mul(up_mul(p.c_abs, sum_up(p.g_abs)), up_add(jb.band[p.m], jb.low[p.m])));
+    double z1b = et;
+    for (std::size_t q = 0; q < nq; ++q) z1b = up_add(z1b, up_mul(up_mul(AW[q], tf.sup_up[q]), et));
     res.bounds.Z1 = std::max(z1a, z1b);
   }
 
@@ -228,6 +308,11 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
         top[ns + k] = F.fun[k];
       else
         bottom = up_add(bottom, arith::mag_up(F.fun[k]));
+    }
+    for (std::size_t q = 0; q < nq; ++q) {  // the A₁₂ block acting on the tail of F (M3.9)
+      const I phi = apply_functional(tf, q, F.fun);
+      for (int i = 0; i < n; ++i)
+        if (!(W[q][i].lower() == 0 && W[q][i].upper() == 0)) top[i] = top[i] - arith::from_id<I>(W[q][i]) * phi;
     }
     res.bounds.Y0 = up_add(apply_norm_up(A, top), bottom);
   }
