@@ -9,7 +9,7 @@
 #include <utility>
 
 #if defined(__FAST_MATH__)
-#error "porecert: -ffast-math breaks outward rounding (docs/enclosures.md, forbidden flags)"
+#error "porecert: the fast-math mode breaks outward rounding (docs/enclosures.md, forbidden flags)"
 #endif
 #if defined(__FLT_EVAL_METHOD__) && __FLT_EVAL_METHOD__ != 0
 #error "porecert: needs FLT_EVAL_METHOD == 0 (SSE2 double arithmetic, no x87 excess precision)"
