@@ -206,6 +206,17 @@ Id sup_abs_poly_sum(const std::vector<std::vector<Id>>& polys, const std::vector
   return sup_by_subdivision<Id>(point, deriv, 0.0, 1.0, rel_tol).value;
 }
 
+std::string unproved_inequalities_text(const std::vector<Inequality>& ineq) {
+  std::string why;
+  for (const auto& q : ineq) {
+    if (q.holds == Tri::yes) continue;
+    if (!why.empty()) why += "; ";
+    why += q.name + (q.holds == Tri::no ? " fails" : " is not proved") + ": lhs - rhs in [" +
+           arith::decimal_lower(-q.margin, 6) + ", " + arith::decimal_upper(-q.margin, 6) + "]";
+  }
+  return why;
+}
+
 DirectResult certify_direct(const Id& R, const DirectOptions& opt) {
   for (int k = 0; k < 4; ++k)
     if (!(std::isfinite(opt.weights[k]) && opt.weights[k] > 0))
@@ -284,13 +295,7 @@ DirectResult certify_direct(const Id& R, const DirectOptions& opt) {
   res.inequalities = ineq;
 
   if (!res.certified) {
-    std::string why;
-    for (const auto& q : ineq) {
-      if (q.holds == Tri::yes) continue;
-      if (!why.empty()) why += "; ";
-      why += q.name + (q.holds == Tri::no ? " fails" : " is not proved") + ": lhs - rhs in [" +
-             arith::decimal_lower(-q.margin, 6) + ", " + arith::decimal_upper(-q.margin, 6) + "]";
-    }
+    const std::string why = unproved_inequalities_text(ineq);
     res.reason = why + " at r = " + exact_string(r);
     if (!opt.radius && !f.ok)
       res.reason += " (no radius satisfies D7 and D8 together: |R| = " + arith::decimal_upper(absR, 6) +

@@ -38,6 +38,9 @@ struct Inequality {
   arith::Tri holds = arith::Tri::unsure;  // yes: proved; no: proved false; unsure: not decided
 };
 
+// "name fails: lhs - rhs in [..]; ..." for every inequality that is not proved (for reasons).
+std::string unproved_inequalities_text(const std::vector<Inequality>& ineq);
+
 struct DirectValue {
   std::string name;     // "f'(0)", "f'''(0)", "f''(1)", "K"
   arith::Id enclosure;  // contains the value of the certified solution for every R in the interval

@@ -329,13 +329,7 @@ DirectCandidateResult certify_chain(const Chain& Fb, const Id& R, const DirectCa
   res.inequalities = ineq;
 
   if (!res.certified) {
-    std::string why;
-    for (const auto& q : ineq) {
-      if (q.holds == Tri::yes) continue;
-      if (!why.empty()) why += "; ";
-      why += q.name + (q.holds == Tri::no ? " fails" : " is not proved") + ": lhs - rhs in [" +
-             arith::decimal_lower(-q.margin, 6) + ", " + arith::decimal_upper(-q.margin, 6) + "]";
-    }
+    const std::string why = unproved_inequalities_text(ineq);
     res.reason = why + " at rho = " + fmt_g(rho, 17);
     if (!opt.radius && !feasible)
       res.reason += " (no radius satisfies D20 and D21 together: |R| = " + arith::decimal_upper(c.absR, 6) +

@@ -14,6 +14,7 @@
 
 #include "arith/interval.hpp"
 #include "model/operator.hpp"
+#include "proof/newton_kantorovich.hpp"
 
 namespace porecert::proof {
 
@@ -129,10 +130,8 @@ Value<S> column_j(const Lifted<S>& bar, int N, int j) {
 
 }  // namespace fold
 
-struct FoldBounds {
-  double Y0 = 0, Z0 = 0, Z1 = 0, Z2 = 0, A_norm = 0;  // all rounded up
-  double Z() const { return Z0 > Z1 ? Z0 : Z1; }
-};
+// Same bounds as the one-function verifier's radii polynomial.
+using FoldBounds = NKBounds;
 
 template <arith::Interval I>
 struct FoldResult {
