@@ -191,12 +191,11 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
   // 3. Proof, with remedies.
   int bits = req.precision_bits;
   for (int attempt = 0; attempt < 14; ++attempt) {
-    const model::Model<double> mN = make(Rmid);
     if (bits == 0 || bits == 53) {
       out = prove_double(req.R_lo, req.R_hi, x);
     } else {
       arith::PrecisionScope scope(bits);
-      const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(mN, x));
+      const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(md, x));
       const model::Model<Mpfr> mm = model::berman<Mpfr>(Mpfr(Rmid));
       double last = 0;
       const int steps = 2 + bits / 40;
@@ -208,7 +207,7 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
     const bool z_problem = out.failure.rfind("Z = ", 0) == 0;
     if (z_problem && out.Z1 >= out.Z0 && N < req.max_modes) {
       N = std::min(req.max_modes, N * 3 / 2);
-      x = candidate::with_modes(mN, x, N);
+      x = candidate::with_modes(md, x, N);
       log.push_back("remedy: more modes (" + std::to_string(N) + ")");
       continue;
     }
@@ -223,8 +222,7 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
     // Tighter enclosures: Y0 is rounding-bound in double; prove again about an MPFR candidate.
     const int b2 = 128;
     arith::PrecisionScope scope(b2);
-    const model::Model<double> mN = make(Rmid);
-    const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(mN, x));
+    const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(md, x));
     double last = 0;
     const auto xm = candidate::refine_mpfr(model::berman<Mpfr>(Mpfr(Rmid)), x, lu, 5, &last);
     CertifyOutcome tight = prove_mpfr(req.R_lo, req.R_hi, xm, b2);
