@@ -15,7 +15,7 @@ namespace porecert::cli {
 namespace {
 
 struct VerifyOptions {
-  std::string case_file, R, branch, start, json, method = "newton";
+  std::string case_file, R, branch, start, json, method = "auto";
   int precision = 0, modes = 0;
 };
 
@@ -37,19 +37,39 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
                    const std::string& branch) {
   std::printf("porecert verify: Berman half-channel, R = %s%s%s, branch %s\n", R_lo.c_str(), R_lo == R_hi ? "" : " .. ",
               R_lo == R_hi ? "" : R_hi.c_str(), branch.empty() ? "(unlabelled)" : branch.c_str());
-  std::printf(
-      "  candidate: %d Chebyshev modes, %s\n", o.modes,
-      o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str());
-  std::printf("  bounds:    Y0 = %.3g  Z0 = %.3g  Z1 = %.3g  Z2 = %.3g\n", o.Y0, o.Z0, o.Z1, o.Z2);
+  const std::string arith_text =
+      o.precision_bits <= 53 ? "double intervals" : "MPFR " + std::to_string(o.precision_bits) + " bits";
+  if (o.reduced) {
+    const auto& r = *o.reduced;
+    std::printf("  method:    reduced ODE (docs/method.md S), eps = %+d, wall at zero %d of f', %s\n", r.eps, r.nth,
+                arith_text.c_str());
+    if (o.certified)
+      std::printf("  bounds:    R(s_lo) in [%.17g, %.17g], R(s_hi) in [%.17g, %.17g], dR/ds on S in [%.3g, %.3g]\n",
+                  r.R_at_s_lo.lower(), r.R_at_s_lo.upper(), r.R_at_s_hi.lower(), r.R_at_s_hi.upper(), r.dR_ds.lower(),
+                  r.dR_ds.upper());
+  } else {
+    std::printf("  candidate: %d Chebyshev modes, %s\n", o.modes, arith_text.c_str());
+    std::printf("  bounds:    Y0 = %.3g  Z0 = %.3g  Z1 = %.3g  Z2 = %.3g\n", o.Y0, o.Z0, o.Z1, o.Z2);
+  }
   if (!o.certified) {
     std::printf("  NOT CERTIFIED: %s\n", o.failure.c_str());
     for (const auto& l : o.log) std::printf("    %s\n", l.c_str());
     return;
   }
-  std::printf("  CERTIFIED: a true solution lies within %.3g of the candidate and is the only one within %.3g\n",
-              o.existence_radius, o.uniqueness_radius);
-  std::printf("             (l1 norm of (f'(0), K, Chebyshev coefficients of f'''))\n");
-  std::printf("  sup|f^(k) - candidate^(k)| <= %.3g for k = 0..3\n", o.c3_error[3]);
+  if (o.reduced) {
+    const auto& r = *o.reduced;
+    std::printf(
+        "  CERTIFIED: for every R given, exactly one solution with this eps and wall zero has shape parameter\n");
+    std::printf("             s = f'''(0)/(R f'(0)^2) in [%s, %s]; it has s in [%s, %s]\n", r.S_lo.c_str(),
+                r.S_hi.c_str(), r.s_lo.c_str(), r.s_hi.c_str());
+    std::printf("  tube half-widths |f^(k) - m_k| <= %.3g, %.3g, %.3g, %.3g for k = 0..3 (every eta)\n", o.c3_error[0],
+                o.c3_error[1], o.c3_error[2], o.c3_error[3]);
+  } else {
+    std::printf("  CERTIFIED: a true solution lies within %.3g of the candidate and is the only one within %.3g\n",
+                o.existence_radius, o.uniqueness_radius);
+    std::printf("             (l1 norm of (f'(0), K, Chebyshev coefficients of f'''))\n");
+    std::printf("  sup|f^(k) - candidate^(k)| <= %.3g for k = 0..3\n", o.c3_error[3]);
+  }
   std::printf("  f'(0)   in [%s, %s]\n", o.fp0.lo.c_str(), o.fp0.hi.c_str());
   std::printf("  f'''(0) in [%s, %s]\n", o.fppp0.lo.c_str(), o.fppp0.hi.c_str());
   std::printf("  f''(1)  in [%s, %s]   (wall shear)\n", o.fpp1.lo.c_str(), o.fpp1.hi.c_str());
@@ -124,15 +144,18 @@ int run_verify(const VerifyOptions& v) {
     throw input_error("--precision: " + std::to_string(req.precision_bits) + " is outside 53..4096 bits");
   if (req.modes != 0 && (req.modes < 8 || req.modes > 4000))
     throw input_error("--modes: " + std::to_string(req.modes) + " is outside 8..4000");
-  if (v.method != "newton" && v.method != "direct")
-    throw input_error("--method: '" + v.method + "' is not a method (rule: newton or direct)");
+  if (v.method != "auto" && v.method != "newton" && v.method != "direct" && v.method != "reduced")
+    throw input_error("--method: '" + v.method + "' is not a method (rule: auto, newton, reduced or direct)");
   if (v.method == "direct") return run_direct(req, json_path);
+  req.method = v.method;
   prob.R_lo = req.R_lo;
   prob.R_hi = req.R_hi;
   prob.branch = req.start ? "" : req.branch;
 
   proof::CertifyOutcome o;
-  if (req.branch == "II" || req.branch == "III") {
+  if (v.method == "reduced" || (req.branch == "I" && !req.start)) {
+    o = proof::certify_berman(req);
+  } else if (req.branch == "II" || req.branch == "III") {
     // Types II and III: the branch search, then the solution whose certified label matches.
     const auto all = proof::certify_branches(req);
     bool found = false;
@@ -190,7 +213,9 @@ Action register_verify(CLI::App& app) {
   sub->add_option("--json", v->json, "Write the certificate (JSON) to PATH, or - for stdout");
   sub->add_option(
       "--method", v->method,
-      "Proof method: newton (Newton-Kantorovich about a candidate) or direct (contraction about the R = 0 profile)");
+      "Proof method: auto (default), newton (Newton-Kantorovich about a Chebyshev candidate), reduced (validated "
+      "Taylor integration of the symmetry-reduced ODE, docs/method.md S) or direct (contraction about the R = 0 "
+      "profile)");
   return [v] { return run_verify(*v); };
 }
 
@@ -250,9 +275,15 @@ Action register_recheck(CLI::App& app) {
     } catch (const certificate::format_error& e) {
       throw input_error(e.what());
     }
-    const auto o = proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
-    std::printf("porecert recheck: %s (R = [%s, %s], %d modes, %d bits)\n", path->c_str(), s.problem.R_lo.c_str(),
-                s.problem.R_hi.c_str(), o.modes, o.precision_bits);
+    const auto o =
+        s.method == "reduced-ivp"
+            ? proof::outcome_of(proof::reduced_prove(s.problem.R_lo, s.problem.R_hi, s.eps, s.nth, s.reduced_s[0],
+                                                     s.reduced_s[1], s.reduced_s[2], s.reduced_s[3], s.precision_bits))
+            : proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+    std::printf("porecert recheck: %s (R = [%s, %s], %s, %d bits)\n", path->c_str(), s.problem.R_lo.c_str(),
+                s.problem.R_hi.c_str(),
+                s.method == "reduced-ivp" ? "reduced ODE" : (std::to_string(o.modes) + " modes").c_str(),
+                o.precision_bits);
     if (s.status != "certified") {
       std::printf("  the certificate claims no proof (status \"%s\"); re-run: %s\n", s.status.c_str(),
                   o.certified ? "certified" : o.failure.c_str());

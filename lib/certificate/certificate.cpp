@@ -22,6 +22,41 @@ json pair(const proof::Enclosure& e) { return json::array({e.lo, e.hi}); }
 const char* kValueKeys[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
 }  // namespace
 
+// The reduced-ODE proof's own keys (docs/certificate.md, "reduced-ivp"): they replace the
+// Newton-Kantorovich space, bounds and candidate.
+void reduced_into(json& j, const proof::ReducedResult& r) {
+  j["method"] = "reduced-ivp";
+  j["space"] = {{"description",
+                 "shape parameter s = f'''(0) / (R f'(0)^2) of solutions with sign(R f'(0)) = eps and eta = 1 the "
+                 "nth zero of f' on (0,1] (docs/method.md (S3), (S10)); radii are distances in s from the candidate"},
+                {"weights", {{"s", 1}}}};
+  j["uniqueness"] = r.certified
+                        ? "for every R in the interval, exactly one solution has eps and nth as stated and s in "
+                          "[S_lo, S_hi]; it has s in [s_lo, s_hi] (not a global uniqueness claim)"
+                        : "none";
+  j["error_bounds_meaning"] =
+      "half-width of the certified tube: |f^(k)(eta) - m_k(eta)| <= bound for every eta in [0,1], m_k the "
+      "midpoint of the certified pointwise enclosure (docs/method.md (S11))";
+  const auto id_pair = [](const arith::Id& x) { return json::array({down_str(x.lower()), up_str(x.upper())}); };
+  j["bounds"] = {{"R(s_lo)", id_pair(r.R_at_s_lo)},
+                 {"R(s_hi)", id_pair(r.R_at_s_hi)},
+                 {"dR/ds on S", id_pair(r.dR_ds)},
+                 {"inequalities",
+                  "R(s_lo) and R(s_hi) lie on opposite sides of every R in the interval (existence, intermediate value "
+                  "theorem); 0 is not in dR/ds on S (uniqueness); every Taylor step validated (docs/method.md (S9))"}};
+  j["candidate"] = {{"kind", "reduced shape parameter"},
+                    {"eps", r.eps},
+                    {"nth_zero", r.nth},
+                    {"s_lo", r.s_lo},
+                    {"s_hi", r.s_hi},
+                    {"S_lo", r.S_lo},
+                    {"S_hi", r.S_hi},
+                    {"arithmetic", r.precision_bits <= 53 ? "double intervals" : "MPFR intervals"},
+                    {"precision_bits", r.precision_bits},
+                    {"taylor_order", r.order},
+                    {"taylor_steps", r.steps}};
+}
+
 json to_json(const Problem& p, const proof::CertifyOutcome& o) {
   json j;
   j["format"] = kFormat;
@@ -88,6 +123,7 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
                     {"precision_bits", o.precision_bits},
                     {"layout", "[f'(0), K, u_0, ..., u_{N-1}], u = f''' = sum u_k T_k(2 eta - 1)"},
                     {"coefficients_hex", o.candidate_hex}};
+  if (o.reduced) reduced_into(j, *o.reduced);
   j["log"] = o.log;
   j["seconds"] = o.seconds;
   j["caution"] = kCaution;
@@ -137,15 +173,26 @@ Stored parse(const json& j) {
   if (s.precision_bits < 53 || s.precision_bits > 100000)
     throw format_error("certificate: candidate.precision_bits is " + std::to_string(s.precision_bits) +
                        ", must be in [53, 100000]");
-  const auto& coeffs = need(cand, "coefficients_hex", json::value_t::array, "list of exact hex strings");
-  const int modes = need(cand, "modes", json::value_t::number_integer, "number of Chebyshev modes").get<int>();
-  for (const auto& c : coeffs) {
-    if (!c.is_string()) throw format_error("certificate: candidate.coefficients_hex holds a non-string " + c.dump());
-    s.candidate_hex.push_back(c.get<std::string>());
+  s.method = j.contains("method") && j["method"].is_string() ? j["method"].get<std::string>() : "newton-kantorovich";
+  if (s.method == "reduced-ivp") {
+    s.eps = need(cand, "eps", json::value_t::number_integer, "+1 or -1").get<int>();
+    s.nth = need(cand, "nth_zero", json::value_t::number_integer, "an integer >= 1").get<int>();
+    if ((s.eps != 1 && s.eps != -1) || s.nth < 1 || s.nth > 8)
+      throw format_error("certificate: candidate.eps must be +1 or -1 and candidate.nth_zero in 1..8");
+    const char* keys[4] = {"s_lo", "s_hi", "S_lo", "S_hi"};
+    for (int i = 0; i < 4; ++i)
+      s.reduced_s[i] = need(cand, keys[i], json::value_t::string, "an exact decimal or hex string").get<std::string>();
+  } else {
+    const auto& coeffs = need(cand, "coefficients_hex", json::value_t::array, "list of exact hex strings");
+    const int modes = need(cand, "modes", json::value_t::number_integer, "number of Chebyshev modes").get<int>();
+    for (const auto& c : coeffs) {
+      if (!c.is_string()) throw format_error("certificate: candidate.coefficients_hex holds a non-string " + c.dump());
+      s.candidate_hex.push_back(c.get<std::string>());
+    }
+    if (static_cast<int>(s.candidate_hex.size()) != modes + 2)
+      throw format_error("certificate: candidate.coefficients_hex has " + std::to_string(s.candidate_hex.size()) +
+                         " entries, must be modes + 2 = " + std::to_string(modes + 2) + " (truncated?)");
   }
-  if (static_cast<int>(s.candidate_hex.size()) != modes + 2)
-    throw format_error("certificate: candidate.coefficients_hex has " + std::to_string(s.candidate_hex.size()) +
-                       " entries, must be modes + 2 = " + std::to_string(modes + 2) + " (truncated?)");
   const auto er = need(j, "existence_radius", json::value_t::string, "decimal string").get<std::string>();
   try {
     s.existence_radius = arith::from_decimal<arith::Id>(er).upper();

@@ -5,6 +5,7 @@
 #include <stdexcept>
 
 #include "candidate/galerkin_newton.hpp"
+#include "candidate/reduced_shooting.hpp"
 #include "model/berman.hpp"
 #include "model/operator.hpp"
 #include "proof/branches.hpp"
@@ -117,10 +118,75 @@ bool wider_than(const CertifyOutcome& o, double rel) {
 
 }  // namespace
 
+CertifyOutcome outcome_of(const ReducedResult& r) {
+  CertifyOutcome out;
+  out.certified = r.certified;
+  out.failure = r.failure;
+  out.log = r.log;
+  out.precision_bits = r.precision_bits;
+  out.existence_radius = r.existence_radius;
+  out.uniqueness_radius = r.uniqueness_radius;
+  out.c3_error = r.c3_error;
+  out.method = "reduced-ivp";
+  out.reduced = r;
+  if (r.certified) {
+    Enclosure* e[4] = {&out.fp0, &out.fppp0, &out.fpp1, &out.K};
+    Id* d[4] = {&out.fp0_id, &out.fppp0_id, &out.fpp1_id, &out.K_id};
+    for (int k = 0; k < 4; ++k) {
+      *e[k] = {r.value_lo[k], r.value_hi[k], r.value[k].lower(), r.value[k].upper()};
+      *d[k] = r.value[k];
+    }
+    out.structure = r.structure;
+  }
+  return out;
+}
+
+CertifyOutcome certify_reduced(const CertifyRequest& req, int eps, int nth, long double s_guess) {
+  const auto t0 = std::chrono::steady_clock::now();
+  CertifyOutcome out = outcome_of(reduced_certify(req.R_lo, req.R_hi, eps, nth, s_guess, req.precision_bits));
+  out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  return out;
+}
+
+namespace {
+// Branch data of the reduced method for a labelled branch (docs/method.md §S): (eps, nth, guess).
+struct ReducedPick {
+  int eps, nth;
+  long double guess;
+};
+std::optional<ReducedPick> reduced_pick(const CertifyRequest& req, double R) {
+  if (R == 0) return std::nullopt;
+  if (req.start) {
+    const double a = req.start->first, b = req.start->second;
+    if (a == 0) return std::nullopt;
+    return ReducedPick{(R * a > 0) ? 1 : -1, 1, candidate::reduced_s_of(R, a, b)};
+  }
+  if (req.branch == "I")
+    return R > 0 ? ReducedPick{1, 1, reduced_guess(R, 1, 1, -1)} : ReducedPick{-1, 1, reduced_guess(R, -1, 1, 1)};
+  if (req.branch == "II" && R > 0) return ReducedPick{1, 1, reduced_guess(R, 1, 1, 1)};
+  return std::nullopt;
+}
+}  // namespace
+
 CertifyOutcome certify_berman(const CertifyRequest& req) {
   const auto t0 = std::chrono::steady_clock::now();
   const Id Rint = read_R<Id>(req.R_lo, req.R_hi);
   const double Rmid = arith::mid_double(Rint);
+  // Strong suction: the reduced method first (types I and II are exponentially close there, which
+  // costs the Newton-Kantorovich proof modes and precision; docs/method.md §S).
+  std::vector<std::string> pre;
+  if (req.method == "reduced" || (req.method == "auto" && Rint.lower() >= 40 && !req.start && req.branch == "I")) {
+    const auto pick = reduced_pick(req, Rmid);
+    if (!pick) {
+      CertifyOutcome out;
+      out.failure = "the reduced method needs R != 0 and branch I, II (suction) or --start a,b with a != 0";
+      return out;
+    }
+    CertifyOutcome r = certify_reduced(req, pick->eps, pick->nth, pick->guess);
+    if (r.certified || req.method == "reduced") return r;
+    pre = r.log;
+    pre.push_back("reduced method: " + r.failure + "; trying Newton-Kantorovich");
+  }
   auto make = [](double R) { return model::berman<double>(R); };
   const model::Model<double> md = make(Rmid);
   std::vector<std::string> log;
@@ -157,6 +223,7 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
       }
   }
   log.insert(log.end(), out.log.begin(), out.log.end());
+  log.insert(log.begin(), pre.begin(), pre.end());
   out.log = log;
   out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   return out;

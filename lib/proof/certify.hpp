@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "arith/interval.hpp"
+#include "proof/reduced_ivp.hpp"
 #include "proof/structure.hpp"
 
 namespace porecert::proof {
@@ -24,6 +25,9 @@ struct CertifyRequest {
   // With automatic precision: when a value enclosure is relatively wider than this after a double
   // proof, the proof is redone about an MPFR-refined candidate (docs/method.md §M5).
   double target_rel_width = 1e-12;
+  // "auto" (Newton–Kantorovich; the reduced method for strong suction, docs/method.md §S),
+  // "newton" or "reduced".
+  std::string method = "auto";
 };
 
 struct Enclosure {
@@ -46,12 +50,20 @@ struct CertifyOutcome {
   double seconds = 0;
   Structure structure;                        // certified sign structure and branch label (when certified)
   arith::Id fp0_id, K_id, fpp1_id, fppp0_id;  // the value enclosures as double intervals
+  std::string method = "newton-kantorovich";  // or "reduced-ivp" (then `reduced` holds the proof data)
+  std::optional<ReducedResult> reduced;
 };
 
 // Runs the whole certification for Berman's half-channel problem.
 CertifyOutcome certify_berman(const CertifyRequest& req);
 // The proof part only, about a given (non-rigorous) Galerkin candidate in the model's layout.
 CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>& x_candidate);
+
+// The reduced-ODE proof (docs/method.md §S) for the branch with sign(R f'(0)) = eps and the wall at
+// the nth zero of f', from the shape-parameter guess s_guess; the outcome in the common form.
+CertifyOutcome certify_reduced(const CertifyRequest& req, int eps, int nth, long double s_guess);
+// The common form of a reduced-method result (also used by recheck).
+CertifyOutcome outcome_of(const ReducedResult& r);
 
 // Re-runs the proof on a stored candidate (hex strings) at the stored precision: no solver.
 CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,

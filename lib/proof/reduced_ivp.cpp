@@ -1,0 +1,619 @@
+#include "proof/reduced_ivp.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdlib>
+#include <functional>
+#include <optional>
+
+#include "candidate/reduced_shooting.hpp"
+#include "model/berman_reduced.hpp"
+
+namespace porecert::proof {
+
+using arith::Id;
+using arith::Im;
+using arith::Interval;
+using arith::Mpfr;
+
+namespace {
+
+enum class Part { none, integration, bracket, uniqueness };
+
+template <Interval I>
+bool subset_of(const I& a, const I& b) {  // a ⊆ b
+  return b.lower() <= a.lower() && a.upper() <= b.upper();
+}
+template <Interval I>
+int sgn(const I& x) {  // +1 / −1 when surely so, 0 when unsure
+  if (x.lower() > 0) return 1;
+  if (x.upper() < 0) return -1;
+  return 0;
+}
+template <Interval I>
+I hull2(const I& a, const I& b) {
+  return boost::numeric::hull(a, b);
+}
+// log |x| upper bound of the magnitude (for step-size heuristics only; never a bound).
+template <Interval I>
+double log_mag(const I& x) {
+  if constexpr (std::is_same_v<I, Id>) {
+    const double m = arith::mag_up(x);
+    return m > 0 ? std::log(m) : -1e300;
+  } else {
+    const Mpfr& a = x.lower();
+    const Mpfr& b = x.upper();
+    auto lg = [](const Mpfr& v) {
+      if (mpfr_zero_p(v.get())) return -1e300;
+      long e = 0;
+      const double d = mpfr_get_d_2exp(&e, v.get(), MPFR_RNDN);
+      return std::log(std::fabs(d)) + static_cast<double>(e) * std::log(2.0);
+    };
+    return std::max(lg(a), lg(b));
+  }
+}
+
+template <Interval I>
+struct StepData {
+  double t0 = 0, t1 = 0;
+  I H;                              // enclosure of t1 − t0
+  std::array<std::vector<I>, 8> c;  // Taylor coefficients at t0, orders 0..p
+  std::array<I, 8> E;               // order p+1 coefficient over the step (remainder)
+  std::array<I, 8> B;               // state over [t0, t1]
+  std::array<I, 8> y1;              // state at t1
+};
+
+template <Interval I>
+struct Run {
+  bool ok = false;
+  std::string failure;
+  std::vector<StepData<I>> steps;
+  std::vector<std::pair<int, int>> zero_runs;  // step ranges holding the counted zeros of g'
+  std::vector<int> sign_after;                 // sign of g' after each counted zero
+};
+
+template <Interval I>
+void coefficients(const model::ReducedState<I>& y, const I& t, const I& s, int eps, bool var, int p,
+                  std::array<std::vector<I>, 8>& c) {
+  std::vector<I> Z, V;
+  model::reduced_taylor<I>(y, t, s, eps, var, p + 4, Z, V);
+  for (int j = 0; j < 8; ++j) {
+    c[j].clear();
+    if (j >= 4 && !var) continue;
+    for (int k = 0; k <= p + 1; ++k)
+      c[j].push_back(j < 4 ? model::derivative_coefficient(Z, j, k) : model::derivative_coefficient(V, j - 4, k));
+  }
+}
+
+template <Interval I>
+I horner(const std::vector<I>& c, int p, const I& tau) {
+  I r = c[p];
+  for (int k = p - 1; k >= 0; --k) r = r * tau + c[k];
+  return r;
+}
+
+template <Interval I>
+I tau_pow(const I& tau, int n) {
+  I r(1);
+  for (int i = 0; i < n; ++i) r = r * tau;
+  return r;
+}
+
+// One validated step (docs/method.md (S9)): the high-order a-priori enclosure
+//     P(τ) + [0,H]^{p+1} E' ⊂ int B  with E' = c_{p+1}(B, [t0, t1]) ⊆ E  and  B = P + [0,H]^{p+1} E + slack,
+// after which y(t0 + τ) ∈ Σ_k c_k τ^k + τ^{p+1} E' for every τ in [0, H] (Lagrange remainder).
+template <Interval I>
+bool try_step(const model::ReducedState<I>& y0, const std::array<std::vector<I>, 8>& c0, double t0, double t1,
+              const I& s, int eps, bool var, int p, StepData<I>& out) {
+  const int nc = var ? 8 : 4;
+  out.t0 = t0;
+  out.t1 = t1;
+  out.H = I(t1) - I(t0);
+  const I Hb = arith::make_unchecked<I>(arith::unchecked, arith::scalar_of<I>(0), out.H.upper());
+  const I Hq = tau_pow(Hb, p + 1);
+  std::array<I, 8> P, E;
+  for (int j = 0; j < nc; ++j) {
+    P[j] = horner(c0[j], p, Hb);
+    E[j] = c0[j][p + 1] * I(-1.0, 3.0);
+  }
+  const I T = hull2(I(t0), I(t1));
+  std::array<std::vector<I>, 8> cB;
+  for (int iter = 0; iter < 14; ++iter) {
+    model::ReducedState<I> B{};
+    for (int j = 0; j < nc; ++j) {
+      const I slack = P[j] * I(-0x1p-40, 0x1p-40) + I(-1e-300, 1e-300);
+      B[j] = P[j] + Hq * E[j] + slack;
+    }
+    coefficients(B, T, s, eps, var, p, cB);
+    bool ok = true;
+    for (int j = 0; j < nc; ++j) ok = ok && subset_of(cB[j][p + 1], E[j]);
+    if (ok) {
+      for (int j = 0; j < nc; ++j) {
+        out.E[j] = cB[j][p + 1];
+        out.B[j] = P[j] + Hq * out.E[j];
+        out.y1[j] = horner(c0[j], p, out.H) + tau_pow(out.H, p + 1) * out.E[j];
+        out.c[j] = c0[j];
+      }
+      return true;
+    }
+    for (int j = 0; j < nc; ++j) {
+      I e = hull2(E[j], cB[j][p + 1]);
+      E[j] = e + (e - e) * I(0.5);
+    }
+  }
+  return false;
+}
+
+// Pointwise enclosure of component j at t in the interval tt (within the step).
+template <Interval I>
+I eval_in_step(const StepData<I>& st, int j, int p, const I& tt) {
+  const I zero(0);
+  I tau = tt - I(st.t0);
+  const I lo = arith::make_unchecked<I>(arith::unchecked, arith::scalar_of<I>(0), st.H.upper());
+  tau = boost::numeric::intersect(tau, lo);
+  return horner(st.c[j], p, tau) + tau_pow(tau, p + 1) * st.E[j];
+}
+
+// State enclosure at every t in tt, from the steps of run range [a, b] that meet tt.
+template <Interval I>
+std::array<I, 8> eval_at(const Run<I>& run, int a, int b, int nc, int p, const I& tt) {
+  std::array<I, 8> r{};
+  bool any = false;
+  for (int i = a; i <= b; ++i) {
+    const auto& st = run.steps[i];
+    if (tt.upper() < st.t0 || tt.lower() > st.t1) continue;
+    const I part = boost::numeric::intersect(tt, hull2(I(st.t0), I(st.t1)));
+    for (int j = 0; j < nc; ++j) {
+      const I v = eval_in_step(st, j, p, part);
+      r[j] = any ? hull2(r[j], v) : v;
+    }
+    any = true;
+  }
+  assert(any && "eval_at: point outside the run");
+  return r;
+}
+
+struct Settings {
+  int p = 24;
+  double log_tol = std::log(1e-17);
+  double t_max = 1000;
+};
+
+// Validated integration of (S5)(S6) from t = 0 with s in s, counting the zeros of g' = ε + s t²/2 + s u'
+// (S8) until the nth; every zero is certified simple (g'' of one sign on its run of steps).
+template <Interval I>
+Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
+  Run<I> run;
+  const int nc = var ? 8 : 4;
+  const int p = cfg.p;
+  model::ReducedState<I> y{};
+  for (auto& v : y) v = I(0);
+  double t = 0;
+  int sign_before = eps, run_first = -1, run_g2 = 0;
+  bool in_run = false;
+  std::array<std::vector<I>, 8> c0;
+  while (t < cfg.t_max) {
+    if (run.steps.size() > 400000) {
+      run.failure = "more than 400000 Taylor steps";
+      return run;
+    }
+    coefficients(y, I(t), s, eps, var, p, c0);
+    // Step size from the last coefficients of z (heuristic; the proof checks the step).
+    double lm = -1e300;
+    for (int k = 0; k <= 8; ++k) lm = std::max(lm, log_mag(c0[0][k]));
+    double h = 0.5;
+    for (int k = p - 1; k <= p; ++k) {
+      const double lc = log_mag(c0[0][k]);
+      if (lc > -1e299) h = std::min(h, std::exp((cfg.log_tol + lm - lc) / k));
+    }
+    StepData<I> st;
+    bool done = false;
+    for (int attempt = 0; attempt < 40 && !done; ++attempt, h *= 0.5) {
+      const double t1 = t + h;
+      if (!(t1 > t)) break;
+      if (!try_step(y, c0, t, t1, s, eps, var, p, st)) {
+        continue;
+      }
+      // Keep the validated remainder H^{p+1}|E| near the truncation tolerance: the a-priori box
+      // overestimates c_{p+1}, so the heuristic step alone can leave a wide remainder.
+      {
+        const double lr = (p + 1) * std::log(arith::upper_up(st.H)) + log_mag(st.E[0]);
+        const double excess = lr - (cfg.log_tol + lm);
+        if (excess > std::log(16.0) && attempt < 30) {
+          h = 2 * h * std::max(0.05, std::exp(-excess / (p + 1)));  // the loop halves it again
+          continue;
+        }
+      }
+      const I T = hull2(I(t), I(t1));
+      const int g1b = sgn(model::reduced_g(1, T, s, eps, st.B[1]));
+      const int g2b = sgn(model::reduced_g(2, T, s, eps, st.B[2]));
+      if ((in_run || g1b == 0) && (g2b == 0 || (in_run && g2b != run_g2))) {
+        continue;  // zero not isolated yet
+      }
+      done = true;
+      const int idx = static_cast<int>(run.steps.size());
+      run.steps.push_back(st);
+      if (!in_run && g1b == 0) {
+        in_run = true;
+        run_first = idx;
+        run_g2 = g2b;
+      }
+      if (in_run) {
+        const int se = sgn(model::reduced_g(1, I(t1), s, eps, st.y1[1]));
+        if (se != 0) {
+          in_run = false;
+          if (se != sign_before) {
+            run.zero_runs.push_back({run_first, idx});
+            run.sign_after.push_back(se);
+            sign_before = se;
+            if (static_cast<int>(run.zero_runs.size()) == nth) {
+              run.ok = true;
+              return run;
+            }
+          }
+        }
+      }
+      for (int j = 0; j < nc; ++j) y[j] = st.y1[j];
+      t = t1;
+    }
+    if (!done) {
+      run.failure = "Taylor step at t = " + std::to_string(t) +
+                    " could not be validated (a-priori enclosure or zero isolation of g' failed)";
+      return run;
+    }
+  }
+  run.failure =
+      "g' has fewer than " + std::to_string(nth) + " certified zeros on [0, " + std::to_string(cfg.t_max) + "]";
+  return run;
+}
+
+// Narrows the interval holding the zero of g' of the given run (monotone there) by bisection on
+// pointwise enclosures; returns Σ with the zero in its interior.
+template <Interval I>
+I isolate_zero(const Run<I>& run, int zi, const I& s, int eps, int p) {
+  const auto [a_idx, b_idx] = run.zero_runs[zi];
+  const int before = zi == 0 ? eps : run.sign_after[zi - 1];
+  const int after = run.sign_after[zi];
+  double a = run.steps[a_idx].t0, b = run.steps[b_idx].t1;
+  for (int it = 0; it < 200; ++it) {
+    const double m = 0.5 * (a + b);
+    if (!(m > a && m < b)) break;
+    const I mm(m);
+    const int sg = sgn(model::reduced_g(1, mm, s, eps, eval_at(run, a_idx, b_idx, 4, p, mm)[1]));
+    if (sg == before)
+      a = m;
+    else if (sg == after)
+      b = m;
+    else
+      break;
+  }
+  return hull2(I(a), I(b));
+}
+
+template <Interval I>
+I read_interval(const std::string& lo, const std::string& hi) {
+  return hull2(arith::from_decimal<I>(lo), arith::from_decimal<I>(hi));
+}
+
+template <Interval I>
+std::string dec_lo(const I& x) {
+  return arith::decimal_lower(x);
+}
+template <Interval I>
+std::string dec_hi(const I& x) {
+  return arith::decimal_upper(x);
+}
+
+struct Proved {
+  ReducedResult r;
+  Part part = Part::none;
+};
+
+template <Interval I>
+Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int nth, const std::string& sa,
+                  const std::string& sb, const std::string& SA, const std::string& SB, int bits) {
+  Proved out;
+  ReducedResult& r = out.r;
+  r.eps = eps;
+  r.nth = nth;
+  r.precision_bits = bits;
+  r.s_lo = sa;
+  r.s_hi = sb;
+  r.S_lo = SA;
+  r.S_hi = SB;
+  Settings cfg;
+  if constexpr (std::is_same_v<I, Im>) {
+    cfg.p = std::max(24, bits / 3);
+    cfg.log_tol = -0.75 * bits * std::log(2.0);
+  }
+  r.order = cfg.p;
+  const I R = read_interval<I>(R_lo, R_hi);
+  const I s_a = arith::from_decimal<I>(sa), s_b = arith::from_decimal<I>(sb);
+  const I S_a = arith::from_decimal<I>(SA), S_b = arith::from_decimal<I>(SB);
+  const int sR = sgn(R);
+  auto fail = [&](Part part, const std::string& why) {
+    out.part = part;
+    r.failure = why;
+    r.log.push_back("not certified: " + why);
+    return out;
+  };
+  if (sR == 0)
+    return fail(Part::bracket, "R = [" + R_lo + ", " + R_hi + "] contains 0: the reduced method needs R != 0");
+  if (!(s_a.upper() < s_b.lower()) || !(S_a.upper() <= s_a.lower()) || !(s_b.upper() <= S_b.lower()))
+    return fail(Part::bracket, "endpoints not ordered: need S_lo <= s_lo < s_hi <= S_hi");
+  const I s_ab = hull2(s_a, s_b), S = hull2(S_a, S_b);
+  if (sgn(S) == 0) return fail(Part::uniqueness, "the uniqueness set S contains s = 0");
+
+  // 1. R at the bracket ends (thin s).
+  auto R_of = [&](const I& s, I* out_R) -> std::string {
+    const Run<I> run = integrate(s, eps, nth, false, cfg);
+    if (!run.ok) return run.failure;
+    const I sig = isolate_zero(run, nth - 1, s, eps, cfg.p);
+    const auto [a, b] = run.zero_runs[nth - 1];
+    const auto st = eval_at(run, a, b, 4, cfg.p, sig);
+    *out_R = sig * model::reduced_g(0, sig, s, eps, st[0]);
+    return "";
+  };
+  I Ra, Rb;
+  if (auto e = R_of(s_a, &Ra); !e.empty()) return fail(Part::integration, "at s_lo: " + e);
+  if (auto e = R_of(s_b, &Rb); !e.empty()) return fail(Part::integration, "at s_hi: " + e);
+  r.R_at_s_lo = arith::to_id(Ra);
+  r.R_at_s_hi = arith::to_id(Rb);
+  const bool up = Ra.upper() < R.lower() && R.upper() < Rb.lower();
+  const bool down = Rb.upper() < R.lower() && R.upper() < Ra.lower();
+  if (!up && !down) {
+    char buf[300];
+    std::snprintf(buf, sizeof buf,
+                  "bracket: R(s_lo) in [%.17g, %.17g] and R(s_hi) in [%.17g, %.17g] do not straddle R = [%s, %s]",
+                  r.R_at_s_lo.lower(), r.R_at_s_lo.upper(), r.R_at_s_hi.lower(), r.R_at_s_hi.upper(), R_lo.c_str(),
+                  R_hi.c_str());
+    return fail(Part::bracket, buf);
+  }
+  r.log.push_back("bracket: R(s_lo), R(s_hi) straddle R (intermediate value theorem, (S10)); width of R(s_lo) " +
+                  std::to_string(arith::width_up(Ra)));
+
+  // 2. Monotonicity of R(s) on S (uniqueness) with the variational equation (S6).
+  {
+    const Run<I> run = integrate(S, eps, nth, true, cfg);
+    if (!run.ok) return fail(Part::uniqueness, "over S: " + run.failure);
+    const auto [a, b] = run.zero_runs[nth - 1];
+    I d;
+    for (int i = a; i <= b; ++i) {
+      const auto& st = run.steps[i];
+      const I T = hull2(I(st.t0), I(st.t1));
+      const I g = model::reduced_g(0, T, S, eps, st.B[0]);
+      const I gpp = model::reduced_g(2, T, S, eps, st.B[2]);
+      const I dgp = model::reduced_g_ds(1, T, st.B[1], st.B[5]);
+      const I dg = model::reduced_g_ds(0, T, st.B[0], st.B[4]);
+      if (sgn(gpp) == 0) return fail(Part::uniqueness, "g'' may vanish where g' does (over S)");
+      const I di = I(0) - dgp * g / gpp + T * dg;  // (S8)
+      d = i == a ? di : hull2(d, di);
+    }
+    r.dR_ds = arith::to_id(d);
+    if (sgn(d) == 0) {
+      char buf[200];
+      std::snprintf(buf, sizeof buf, "uniqueness: dR/ds over S in [%.3g, %.3g] may vanish", r.dR_ds.lower(),
+                    r.dR_ds.upper());
+      return fail(Part::uniqueness, buf);
+    }
+    r.log.push_back("uniqueness: dR/ds has one sign on S (" + std::to_string(run.steps.size()) + " steps)");
+  }
+
+  // 3. Values by the mean-value form (S12): V(s) ∈ V(s_m) + V'([s_lo, s_hi]) · ([s_lo, s_hi] − s_m), with
+  // V' from the variational equation (S6); a plain hull over s would lose the correlation of σ and s.
+  const I s_m(boost::numeric::median(s_ab));
+  const Run<I> mrun = integrate(s_m, eps, nth, false, cfg);
+  if (!mrun.ok) return fail(Part::integration, "at the bracket midpoint: " + mrun.failure);
+  const Run<I> run = integrate(s_ab, eps, nth, true, cfg);
+  if (!run.ok) return fail(Part::integration, "over [s_lo, s_hi]: " + run.failure);
+  r.steps = static_cast<int>(run.steps.size());
+  const I sig_m = isolate_zero(mrun, nth - 1, s_m, eps, cfg.p);
+  const auto [ma, mb] = mrun.zero_runs[nth - 1];
+  const auto ym = eval_at(mrun, ma, mb, 4, cfg.p, sig_m);
+  const I sig = isolate_zero(run, nth - 1, s_ab, eps, cfg.p);
+  const auto [za, zb] = run.zero_runs[nth - 1];
+  const auto yv = eval_at(run, za, zb, 8, cfg.p, sig);
+  const I ds = s_ab - s_m;
+  {
+    const I q2 = sig_m * sig_m, q3 = q2 * sig_m, q4 = q2 * q2;
+    const std::array<I, 4> vm{I(eps) * q2 / R, q4 * s_m / R, q3 * model::reduced_g(2, sig_m, s_m, eps, ym[2]) / R,
+                              q4 * (I(1) + s_m) / R};
+    const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]), g3 = model::reduced_g(3, sig, s_ab, eps, yv[3]);
+    const I sp = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;  // σ'(s), (S8)
+    const I dg2 = model::reduced_g_ds(2, sig, yv[2], yv[6]);
+    const I p2 = sig * sig, p3 = p2 * sig, p4 = p2 * p2;
+    const std::array<I, 4> dv{I(2 * eps) * sig * sp / R, (I(4) * p3 * sp * s_ab + p4) / R,
+                              (I(3) * p2 * sp * g2 + p3 * (g3 * sp + dg2)) / R,
+                              (I(4) * p3 * sp * (I(1) + s_ab) + p4) / R};
+    for (int k = 0; k < 4; ++k) {
+      const I v = vm[k] + dv[k] * ds;
+      r.value[k] = arith::to_id(v);
+      r.value_lo[k] = dec_lo(v);
+      r.value_hi[k] = dec_hi(v);
+    }
+  }
+
+  // Tube half-widths (S11): at s_m, the width of the pointwise enclosure of g^(k) (coefficient and
+  // remainder widths) and of the shift t = σ η, σ ∈ Σ; plus sup |∂f^(k)/∂s| · |s − s_m| over the bracket.
+  auto mag = [](const I& x) { return I(boost::numeric::norm(x)); };
+  auto wid = [](const I& x) { return I(x.upper()) - I(x.lower()); };
+  std::array<I, 4> tube{I(0), I(0), I(0), I(0)};
+  auto raise = [&](int k, const I& w) {
+    if (tube[k].upper() < w.upper()) tube[k] = I(w.upper());
+  };
+  const I wS = wid(sig_m);
+  for (const auto& sp : mrun.steps) {
+    if (sp.t0 > sig_m.upper()) break;
+    const I T = hull2(I(sp.t0), I(sp.t1));
+    const I H(sp.H.upper());
+    std::array<I, 5> G;
+    for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_m, eps, sp.B[k]);
+    G[4] = G[0] * G[3] - G[1] * G[2];  // g'''' from (S1)
+    for (int k = 0; k < 4; ++k) {
+      I wz(0), Hm(1);
+      for (int m = 0; m <= cfg.p; ++m) {
+        wz = wz + wid(sp.c[k][m]) * Hm;
+        Hm = Hm * H;
+      }
+      wz = wz + wid(sp.E[k]) * Hm;
+      const I wg = mag(s_m) * wz + mag(G[k + 1]) * wS;
+      I fac = sig_m / R;
+      for (int i = 0; i < k; ++i) fac = fac * sig_m;
+      raise(k, (mag(fac) * wg + mag(G[k]) * wid(fac)) / I(2));
+    }
+  }
+  {
+    const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]);
+    const I sp_ = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;
+    for (const auto& st : run.steps) {
+      if (st.t0 > sig.upper()) break;
+      const I T = hull2(I(st.t0), I(st.t1));
+      std::array<I, 5> G;
+      for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_ab, eps, st.B[k]);
+      G[4] = G[0] * G[3] - G[1] * G[2];
+      for (int k = 0; k < 4; ++k) {
+        I sk(1);
+        for (int i = 0; i < k; ++i) sk = sk * sig;
+        const I dgk = model::reduced_g_ds(k, T, st.B[k], st.B[4 + k]);
+        const I d = (I(k + 1) * sk * sp_ * G[k] + sk * sig * (G[k + 1] * (T / sig) * sp_ + dgk)) / R;
+        raise(k, mag(d) * mag(ds));
+      }
+    }
+  }
+  // The two parts add (a sup of a sum is at most the sum of the sups).
+  for (int k = 0; k < 4; ++k) r.c3_error[k] = arith::upper_up(tube[k]);
+  // Structure and flow reversal (sign f^(k) = sign R · sign g^(k)).
+  Structure& S_ = r.structure;
+  const int fp0 = eps * sR;
+  std::vector<I> zeros;
+  for (int zi = 0; zi < nth; ++zi) zeros.push_back(isolate_zero(run, zi, s_ab, eps, cfg.p) / sig);
+  if (fp0 < 0) {
+    S_.label = "III";
+    S_.reason = "f'(0) = eps sigma^2 / R < 0 (reduced chart eps = " + std::to_string(eps) + ")";
+    S_.reversal = arith::Tri::yes;
+    S_.reversal_where.push_back({0.0, nth == 1 ? 1.0 : arith::lower_down(zeros[0])});
+  } else {
+    if (nth == 1) {
+      S_.reversal = arith::Tri::no;
+    } else {
+      S_.reversal = arith::Tri::yes;
+      S_.reversal_where.push_back({arith::upper_up(zeros[0]), arith::lower_down(zeros[1])});
+    }
+    bool neg_pp = true, initial = true;
+    for (const auto& sp : run.steps) {
+      if (sp.t0 > sig.upper()) break;
+      const I T = hull2(I(sp.t0), I(sp.t1));
+      const int q2 = sR * sgn(model::reduced_g(2, T, s_ab, eps, sp.B[2]));
+      if (q2 < 0) {
+        initial = false;
+        continue;
+      }
+      if (q2 == 0 && initial && sR * sgn(model::reduced_g(3, T, s_ab, eps, sp.B[3])) < 0) continue;
+      neg_pp = false;
+      break;
+    }
+    if (neg_pp && nth == 1) {
+      S_.label = "I";
+      S_.reason = "f''' < 0 near the centre plane and f'' < 0 on the rest of (0,1] (certified step by step), f'(0) > 0";
+    } else {
+      S_.label = "unclassified";
+      for (const auto& sp : run.steps) {
+        if (sp.t1 > sig.lower()) break;
+        if (sR * sgn(model::reduced_g(2, I(sp.t1), s_ab, eps, sp.y1[2])) > 0) {
+          S_.label = "II";
+          char buf[160];
+          std::snprintf(buf, sizeof buf, "f'(0) > 0 and f'' > 0 at eta = t/sigma with t = %.6g", sp.t1);
+          S_.reason = buf;
+          break;
+        }
+      }
+    }
+  }
+  r.certified = true;
+  r.log.push_back("certified: " + std::to_string(r.steps) + " Taylor steps of order " + std::to_string(cfg.p));
+  return out;
+}
+
+Proved prove_any(const std::string& R_lo, const std::string& R_hi, int eps, int nth, const std::string& sa,
+                 const std::string& sb, const std::string& SA, const std::string& SB, int bits) {
+  if (bits <= 53) return prove_impl<Id>(R_lo, R_hi, eps, nth, sa, sb, SA, SB, 53);
+  arith::PrecisionScope scope(bits);
+  return prove_impl<Im>(R_lo, R_hi, eps, nth, sa, sb, SA, SB, bits);
+}
+
+// Exact string of the long double x rounded to the working format (double or MPFR bits).
+std::string exact_string(long double x, int bits) {
+  if (bits <= 53) return arith::hex_exact(static_cast<double>(x));
+  arith::PrecisionScope scope(bits);
+  Mpfr m;
+  mpfr_set_ld(m.get(), x, MPFR_RNDN);
+  return arith::hex_exact(m);
+}
+
+}  // namespace
+
+ReducedResult reduced_prove(const std::string& R_lo, const std::string& R_hi, int eps, int nth, const std::string& s_lo,
+                            const std::string& s_hi, const std::string& S_lo, const std::string& S_hi,
+                            int precision_bits) {
+  return prove_any(R_lo, R_hi, eps, nth, s_lo, s_hi, S_lo, S_hi, precision_bits).r;
+}
+
+long double reduced_guess(double R, int eps, int nth, int sign_s) {
+  if (R < 0) return std::acos(-1.0L) / (2.0L * std::fabs(R));    // injection, f → sin(πη/2)
+  if (nth == 1) return sign_s * std::exp(-std::fabs(R) / 4.4L);  // types I (s < 0) and II (s > 0), R large
+  return 0.05L;
+}
+
+ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, int eps, int nth, long double s_guess,
+                              int precision_bits) {
+  ReducedResult fail;
+  fail.eps = eps;
+  fail.nth = nth;
+  const Id Rint = hull2(arith::from_decimal<Id>(R_lo), arith::from_decimal<Id>(R_hi));
+  const long double Rmid = arith::mid_double(Rint);
+  const candidate::ReducedBranch br{eps, nth};
+  const auto sbar = candidate::reduced_solve(br, Rmid, s_guess);
+  if (!sbar) {
+    fail.failure =
+        "no candidate: reduced shooting did not converge from s = " + std::to_string(static_cast<double>(s_guess));
+    return fail;
+  }
+  const auto shot = candidate::reduced_shoot(br, *sbar);
+  const int bits = precision_bits != 0 ? precision_bits : (std::fabs(*sbar) > 1e-140L ? 53 : 128);
+  const long double dR = std::fabs(shot.dR_ds);
+  const long double half = 0.5L * (arith::upper_up(Rint) - arith::lower_down(Rint));
+  const long double margin = (bits <= 53 ? 1e-13L : std::ldexp(1.0L, -std::min(bits, 60) + 10)) * (1 + std::fabs(Rmid));
+  long double ds = (half + margin) / dR;
+  long double rho = 0.25L * std::fabs(*sbar);
+  std::vector<std::string> log;
+  log.push_back("candidate: reduced shooting, eps = " + std::to_string(eps) + ", zero " + std::to_string(nth) +
+                ", s = " + exact_string(*sbar, 53));
+  for (int attempt = 0; attempt < 12; ++attempt) {
+    if (rho < 2 * ds) rho = 2 * ds;
+    const long double sa = *sbar - ds, sb = *sbar + ds, SA = *sbar - rho, SB = *sbar + rho;
+    Proved p = prove_any(R_lo, R_hi, eps, nth, exact_string(sa, bits), exact_string(sb, bits), exact_string(SA, bits),
+                         exact_string(SB, bits), bits);
+    log.insert(log.end(), p.r.log.begin(), p.r.log.end());
+    if (p.r.certified) {
+      p.r.log = log;
+      p.r.existence_radius = static_cast<double>(ds) * (1 + 1e-15);
+      p.r.uniqueness_radius = static_cast<double>(rho) * (1 - 1e-15);
+      return p.r;
+    }
+    if (p.part == Part::bracket) {
+      ds *= 8;
+      log.push_back("remedy: wider bracket");
+    } else if (p.part == Part::uniqueness && rho > 4 * ds) {
+      rho /= 8;
+      log.push_back("remedy: smaller uniqueness set");
+    } else {
+      p.r.log = log;
+      return p.r;
+    }
+  }
+  fail.failure = "not certified after 12 attempts";
+  fail.log = log;
+  return fail;
+}
+
+}  // namespace porecert::proof
