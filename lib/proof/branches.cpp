@@ -17,12 +17,39 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
   BranchesOutcome out;
   const arith::Id R =
       boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
-  const auto search = candidate::find_branches(arith::mid_double(R), req.max_modes);
-  out.region = search.region;
-  out.log = search.log;
-  for (const auto& f : search.found) {
-    out.solutions.push_back(certify_from(req, f.x));
-    out.origins.push_back(f.origin);
+  const double Rm = arith::mid_double(R);
+  if (R.lower() >= kReducedFromR) {
+    // Strong suction: types I and II by the reduced method (docs/method.md §S), one on each side of
+    // s = 0; the Chebyshev search only below kSearchUpToR (its proofs stop closing above).
+    for (int sign_s : {-1, 1}) {
+      out.solutions.push_back(certify_reduced(req, 1, 1, reduced_guess(Rm, 1, 1, sign_s)));
+      out.origins.push_back(std::string("reduced shooting, f'(0) > 0, s ") + (sign_s < 0 ? "< 0" : "> 0"));
+    }
+    out.region = "reduced shape parameter s of either sign with f'(0) > 0 and the wall at the first zero of f'";
+    if (Rm <= kSearchUpToR) {
+      const auto search = candidate::find_branches(Rm, req.max_modes);
+      out.region += "; " + search.region;
+      out.log = search.log;
+      for (const auto& f : search.found) {
+        CertifyOutcome c = certify_from(req, f.x);
+        bool dup = false;  // the same solution as a reduced one (not disjoint from it)?
+        for (std::size_t i = 0; i < 2; ++i)
+          dup = dup || (out.solutions[i].certified && c.certified && distinct(c, out.solutions[i]) != arith::Tri::yes);
+        if (dup) continue;
+        out.solutions.push_back(std::move(c));
+        out.origins.push_back(f.origin);
+      }
+    } else {
+      out.region += "; type III (f'(0) < 0) not searched above R = " + std::to_string(static_cast<int>(kSearchUpToR));
+    }
+  } else {
+    const auto search = candidate::find_branches(Rm, req.max_modes);
+    out.region = search.region;
+    out.log = search.log;
+    for (const auto& f : search.found) {
+      out.solutions.push_back(certify_from(req, f.x));
+      out.origins.push_back(f.origin);
+    }
   }
   bool all = !out.solutions.empty();
   for (std::size_t i = 0; i < out.solutions.size(); ++i)

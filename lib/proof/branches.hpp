@@ -16,6 +16,11 @@ struct BranchesOutcome {
   std::vector<std::string> log;
 };
 
+// From R = kReducedFromR on, types I and II come from the reduced method; the Chebyshev branch
+// search runs up to kSearchUpToR (measured reach of its proofs, docs/branches.md).
+inline constexpr double kReducedFromR = 40;
+inline constexpr double kSearchUpToR = 60;
+
 BranchesOutcome certify_branches(const CertifyRequest& req);
 
 // Two certified solutions are different if some value enclosure is disjoint.

@@ -173,6 +173,26 @@ std::array<I, 8> eval_at(const Run<I>& run, int a, int b, int nc, int p, const I
   return r;
 }
 
+// n intervals whose union covers x (consecutive pieces share an enclosed endpoint).
+template <Interval I>
+std::vector<I> pieces(const I& x, int n) {
+  if (n <= 1) return {x};
+  std::vector<I> out;
+  const I lo(x.lower()), w = I(x.upper()) - I(x.lower());
+  I prev = lo;
+  for (int i = 1; i <= n; ++i) {
+    const I next = i == n ? I(x.upper()) : lo + w * I(i) / I(n);
+    out.push_back(hull2(prev, next));
+    prev = next;
+  }
+  return out;
+}
+template <Interval I>
+double rel_width(const I& x) {
+  const double m = arith::mag_up(x);
+  return m > 0 ? arith::width_up(x) / m : 0;
+}
+
 struct Settings {
   int p = 24;
   double log_tol = std::log(1e-17);
@@ -208,7 +228,7 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
     }
     StepData<I> st;
     bool done = false;
-    for (int attempt = 0; attempt < 40 && !done; ++attempt, h *= 0.5) {
+    for (int attempt = 0; attempt < 24 && !done; ++attempt, h *= 0.5) {
       const double t1 = t + h;
       if (!(t1 > t)) break;
       if (!try_step(y, c0, t, t1, s, eps, var, p, st)) {
@@ -219,7 +239,7 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
       {
         const double lr = (p + 1) * std::log(arith::upper_up(st.H)) + log_mag(st.E[0]);
         const double excess = lr - (cfg.log_tol + lm);
-        if (excess > std::log(16.0) && attempt < 30) {
+        if (excess > std::log(16.0) && attempt < 16) {
           h = 2 * h * std::max(0.05, std::exp(-excess / (p + 1)));  // the loop halves it again
           continue;
         }
@@ -372,161 +392,250 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
   r.log.push_back("bracket: R(s_lo), R(s_hi) straddle R (intermediate value theorem, (S10)); width of R(s_lo) " +
                   std::to_string(arith::width_up(Ra)));
 
-  // 2. Monotonicity of R(s) on S (uniqueness) with the variational equation (S6).
-  {
-    const Run<I> run = integrate(S, eps, nth, true, cfg);
-    if (!run.ok) return fail(Part::uniqueness, "over S: " + run.failure);
+  // 2. Monotonicity of R(s) on S (uniqueness) with the variational equation (S6), S split into
+  // pieces when one run over all of S cannot isolate the zeros of g'.
+  auto slope_on = [&](const I& Sp, I* d_out) -> std::string {
+    const Run<I> run = integrate(Sp, eps, nth, true, cfg);
+    if (!run.ok) return "over S: " + run.failure;
+    // dR/ds (S8) at the zeros of g' for all s in the piece: Σ by bisection, the state there pointwise.
+    const I sigS = isolate_zero(run, nth - 1, Sp, eps, cfg.p);
     const auto [a, b] = run.zero_runs[nth - 1];
-    I d;
-    for (int i = a; i <= b; ++i) {
-      const auto& st = run.steps[i];
-      const I T = hull2(I(st.t0), I(st.t1));
-      const I g = model::reduced_g(0, T, S, eps, st.B[0]);
-      const I gpp = model::reduced_g(2, T, S, eps, st.B[2]);
-      const I dgp = model::reduced_g_ds(1, T, st.B[1], st.B[5]);
-      const I dg = model::reduced_g_ds(0, T, st.B[0], st.B[4]);
-      if (sgn(gpp) == 0) return fail(Part::uniqueness, "g'' may vanish where g' does (over S)");
-      const I di = I(0) - dgp * g / gpp + T * dg;  // (S8)
-      d = i == a ? di : hull2(d, di);
-    }
-    r.dR_ds = arith::to_id(d);
-    if (sgn(d) == 0) {
-      char buf[200];
-      std::snprintf(buf, sizeof buf, "uniqueness: dR/ds over S in [%.3g, %.3g] may vanish", r.dR_ds.lower(),
-                    r.dR_ds.upper());
-      return fail(Part::uniqueness, buf);
-    }
-    r.log.push_back("uniqueness: dR/ds has one sign on S (" + std::to_string(run.steps.size()) + " steps)");
-  }
-
-  // 3. Values by the mean-value form (S12): V(s) ∈ V(s_m) + V'([s_lo, s_hi]) · ([s_lo, s_hi] − s_m), with
-  // V' from the variational equation (S6); a plain hull over s would lose the correlation of σ and s.
-  const I s_m(boost::numeric::median(s_ab));
-  const Run<I> mrun = integrate(s_m, eps, nth, false, cfg);
-  if (!mrun.ok) return fail(Part::integration, "at the bracket midpoint: " + mrun.failure);
-  const Run<I> run = integrate(s_ab, eps, nth, true, cfg);
-  if (!run.ok) return fail(Part::integration, "over [s_lo, s_hi]: " + run.failure);
-  r.steps = static_cast<int>(run.steps.size());
-  const I sig_m = isolate_zero(mrun, nth - 1, s_m, eps, cfg.p);
-  const auto [ma, mb] = mrun.zero_runs[nth - 1];
-  const auto ym = eval_at(mrun, ma, mb, 4, cfg.p, sig_m);
-  const I sig = isolate_zero(run, nth - 1, s_ab, eps, cfg.p);
-  const auto [za, zb] = run.zero_runs[nth - 1];
-  const auto yv = eval_at(run, za, zb, 8, cfg.p, sig);
-  const I ds = s_ab - s_m;
-  {
-    const I q2 = sig_m * sig_m, q3 = q2 * sig_m, q4 = q2 * q2;
-    const std::array<I, 4> vm{I(eps) * q2 / R, q4 * s_m / R, q3 * model::reduced_g(2, sig_m, s_m, eps, ym[2]) / R,
-                              q4 * (I(1) + s_m) / R};
-    const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]), g3 = model::reduced_g(3, sig, s_ab, eps, yv[3]);
-    const I sp = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;  // σ'(s), (S8)
-    const I dg2 = model::reduced_g_ds(2, sig, yv[2], yv[6]);
-    const I p2 = sig * sig, p3 = p2 * sig, p4 = p2 * p2;
-    const std::array<I, 4> dv{I(2 * eps) * sig * sp / R, (I(4) * p3 * sp * s_ab + p4) / R,
-                              (I(3) * p2 * sp * g2 + p3 * (g3 * sp + dg2)) / R,
-                              (I(4) * p3 * sp * (I(1) + s_ab) + p4) / R};
-    for (int k = 0; k < 4; ++k) {
-      const I v = vm[k] + dv[k] * ds;
-      r.value[k] = arith::to_id(v);
-      r.value_lo[k] = dec_lo(v);
-      r.value_hi[k] = dec_hi(v);
-    }
-  }
-
-  // Tube half-widths (S11): at s_m, the width of the pointwise enclosure of g^(k) (coefficient and
-  // remainder widths) and of the shift t = σ η, σ ∈ Σ; plus sup |∂f^(k)/∂s| · |s − s_m| over the bracket.
-  auto mag = [](const I& x) { return I(boost::numeric::norm(x)); };
-  auto wid = [](const I& x) { return I(x.upper()) - I(x.lower()); };
-  std::array<I, 4> tube{I(0), I(0), I(0), I(0)};
-  auto raise = [&](int k, const I& w) {
-    if (tube[k].upper() < w.upper()) tube[k] = I(w.upper());
+    const auto y = eval_at(run, a, b, 8, cfg.p, sigS);
+    const I g = model::reduced_g(0, sigS, Sp, eps, y[0]);
+    const I gpp = model::reduced_g(2, sigS, Sp, eps, y[2]);
+    if (sgn(gpp) == 0) return "g'' may vanish where g' does (over S)";
+    *d_out =
+        I(0) - model::reduced_g_ds(1, sigS, y[1], y[5]) * g / gpp + sigS * model::reduced_g_ds(0, sigS, y[0], y[4]);
+    return "";
   };
-  const I wS = wid(sig_m);
-  for (const auto& sp : mrun.steps) {
-    if (sp.t0 > sig_m.upper()) break;
-    const I T = hull2(I(sp.t0), I(sp.t1));
-    const I H(sp.H.upper());
-    std::array<I, 5> G;
-    for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_m, eps, sp.B[k]);
-    G[4] = G[0] * G[3] - G[1] * G[2];  // g'''' from (S1)
-    for (int k = 0; k < 4; ++k) {
-      I wz(0), Hm(1);
-      for (int m = 0; m <= cfg.p; ++m) {
-        wz = wz + wid(sp.c[k][m]) * Hm;
-        Hm = Hm * H;
-      }
-      wz = wz + wid(sp.E[k]) * Hm;
-      const I wg = mag(s_m) * wz + mag(G[k + 1]) * wS;
-      I fac = sig_m / R;
-      for (int i = 0; i < k; ++i) fac = fac * sig_m;
-      raise(k, (mag(fac) * wg + mag(G[k]) * wid(fac)) / I(2));
-    }
-  }
   {
-    const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]);
-    const I sp_ = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;
-    for (const auto& st : run.steps) {
-      if (st.t0 > sig.upper()) break;
-      const I T = hull2(I(st.t0), I(st.t1));
-      std::array<I, 5> G;
-      for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_ab, eps, st.B[k]);
-      G[4] = G[0] * G[3] - G[1] * G[2];
-      for (int k = 0; k < 4; ++k) {
-        I sk(1);
-        for (int i = 0; i < k; ++i) sk = sk * sig;
-        const I dgk = model::reduced_g_ds(k, T, st.B[k], st.B[4 + k]);
-        const I d = (I(k + 1) * sk * sp_ * G[k] + sk * sig * (G[k + 1] * (T / sig) * sp_ + dgk)) / R;
-        raise(k, mag(d) * mag(ds));
-      }
-    }
-  }
-  // The two parts add (a sup of a sum is at most the sum of the sups).
-  for (int k = 0; k < 4; ++k) r.c3_error[k] = arith::upper_up(tube[k]);
-  // Structure and flow reversal (sign f^(k) = sign R · sign g^(k)).
-  Structure& S_ = r.structure;
-  const int fp0 = eps * sR;
-  std::vector<I> zeros;
-  for (int zi = 0; zi < nth; ++zi) zeros.push_back(isolate_zero(run, zi, s_ab, eps, cfg.p) / sig);
-  if (fp0 < 0) {
-    S_.label = "III";
-    S_.reason = "f'(0) = eps sigma^2 / R < 0 (reduced chart eps = " + std::to_string(eps) + ")";
-    S_.reversal = arith::Tri::yes;
-    S_.reversal_where.push_back({0.0, nth == 1 ? 1.0 : arith::lower_down(zeros[0])});
-  } else {
-    if (nth == 1) {
-      S_.reversal = arith::Tri::no;
-    } else {
-      S_.reversal = arith::Tri::yes;
-      S_.reversal_where.push_back({arith::upper_up(zeros[0]), arith::lower_down(zeros[1])});
-    }
-    bool neg_pp = true, initial = true;
-    for (const auto& sp : run.steps) {
-      if (sp.t0 > sig.upper()) break;
-      const I T = hull2(I(sp.t0), I(sp.t1));
-      const int q2 = sR * sgn(model::reduced_g(2, T, s_ab, eps, sp.B[2]));
-      if (q2 < 0) {
-        initial = false;
-        continue;
-      }
-      if (q2 == 0 && initial && sR * sgn(model::reduced_g(3, T, s_ab, eps, sp.B[3])) < 0) continue;
-      neg_pp = false;
-      break;
-    }
-    if (neg_pp && nth == 1) {
-      S_.label = "I";
-      S_.reason = "f''' < 0 near the centre plane and f'' < 0 on the rest of (0,1] (certified step by step), f'(0) > 0";
-    } else {
-      S_.label = "unclassified";
-      for (const auto& sp : run.steps) {
-        if (sp.t1 > sig.lower()) break;
-        if (sR * sgn(model::reduced_g(2, I(sp.t1), s_ab, eps, sp.y1[2])) > 0) {
-          S_.label = "II";
-          char buf[160];
-          std::snprintf(buf, sizeof buf, "f'(0) > 0 and f'' > 0 at eta = t/sigma with t = %.6g", sp.t1);
-          S_.reason = buf;
-          break;
+    std::string why;
+    I d;
+    for (int n : {1, 4, 16}) {
+      why.clear();
+      const auto parts = pieces(S, n);
+      for (std::size_t i = 0; i < parts.size() && why.empty(); ++i) {
+        I di;
+        why = slope_on(parts[i], &di);
+        d = i == 0 ? di : hull2(d, di);
+        if (why.empty() && sgn(d) == 0) {
+          char buf[200];
+          std::snprintf(buf, sizeof buf, "uniqueness: dR/ds over S in [%.3g, %.3g] may vanish", arith::to_id(d).lower(),
+                        arith::to_id(d).upper());
+          why = buf;
         }
       }
+      if (why.empty()) {
+        r.log.push_back("uniqueness: dR/ds has one sign on S (" + std::to_string(n) + " piece(s))");
+        break;
+      }
+    }
+    if (!why.empty()) return fail(Part::uniqueness, why);
+    r.dR_ds = arith::to_id(d);
+  }
+
+  // 3. Values, tube and structure for s in [s_lo, s_hi], in pieces when the bracket is wide (an
+  // interval of R): each piece by the mean-value form, then hulls.
+  auto values_on = [&](const I& s_ab, ReducedResult& r) -> std::string {
+    // 3. Values by the mean-value form (S12): V(s) ∈ V(s_m) + V'([s_lo, s_hi]) · ([s_lo, s_hi] − s_m), with
+    // V' from the variational equation (S6); a plain hull over s would lose the correlation of σ and s.
+    const I s_m(boost::numeric::median(s_ab));
+    const Run<I> mrun = integrate(s_m, eps, nth, false, cfg);
+    if (!mrun.ok) return "at the bracket midpoint: " + mrun.failure;
+    const Run<I> run = integrate(s_ab, eps, nth, true, cfg);
+    if (!run.ok) return "over [s_lo, s_hi]: " + run.failure;
+    r.steps = static_cast<int>(run.steps.size());
+    const I sig_m = isolate_zero(mrun, nth - 1, s_m, eps, cfg.p);
+    const auto [ma, mb] = mrun.zero_runs[nth - 1];
+    const auto ym = eval_at(mrun, ma, mb, 4, cfg.p, sig_m);
+    const I sig = isolate_zero(run, nth - 1, s_ab, eps, cfg.p);
+    const auto [za, zb] = run.zero_runs[nth - 1];
+    const auto yv = eval_at(run, za, zb, 8, cfg.p, sig);
+    const I ds = s_ab - s_m;
+    {
+      const I q2 = sig_m * sig_m, q3 = q2 * sig_m, q4 = q2 * q2;
+      const std::array<I, 4> vm{I(eps) * q2 / R, q4 * s_m / R, q3 * model::reduced_g(2, sig_m, s_m, eps, ym[2]) / R,
+                                q4 * (I(1) + s_m) / R};
+      const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]), g3 = model::reduced_g(3, sig, s_ab, eps, yv[3]);
+      const I sp = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;  // σ'(s), (S8)
+      const I dg2 = model::reduced_g_ds(2, sig, yv[2], yv[6]);
+      const I p2 = sig * sig, p3 = p2 * sig, p4 = p2 * p2;
+      const std::array<I, 4> dv{I(2 * eps) * sig * sp / R, (I(4) * p3 * sp * s_ab + p4) / R,
+                                (I(3) * p2 * sp * g2 + p3 * (g3 * sp + dg2)) / R,
+                                (I(4) * p3 * sp * (I(1) + s_ab) + p4) / R};
+      // The direct hull over the bracket is also an enclosure; for wide brackets it is the tighter one.
+      const std::array<I, 4> vh{I(eps) * p2 / R, p4 * s_ab / R, p3 * g2 / R, p4 * (I(1) + s_ab) / R};
+      for (int k = 0; k < 4; ++k) {
+        const I v = boost::numeric::intersect(vm[k] + dv[k] * ds, vh[k]);
+        r.value[k] = arith::to_id(v);
+        r.value_lo[k] = dec_lo(v);
+        r.value_hi[k] = dec_hi(v);
+      }
+    }
+
+    // Tube half-widths (S11): at s_m, the width of the pointwise enclosure of g^(k) (coefficient and
+    // remainder widths) and of the shift t = σ η, σ ∈ Σ; plus sup |∂f^(k)/∂s| · |s − s_m| over the bracket.
+    auto mag = [](const I& x) { return I(boost::numeric::norm(x)); };
+    auto wid = [](const I& x) { return I(x.upper()) - I(x.lower()); };
+    std::array<I, 4> tube{I(0), I(0), I(0), I(0)};
+    auto raise = [&](int k, const I& w) {
+      if (tube[k].upper() < w.upper()) tube[k] = I(w.upper());
+    };
+    const I wS = wid(sig_m);
+    for (const auto& sp : mrun.steps) {
+      if (sp.t0 > sig_m.upper()) break;
+      const I T = hull2(I(sp.t0), I(sp.t1));
+      const I H(sp.H.upper());
+      std::array<I, 5> G;
+      for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_m, eps, sp.B[k]);
+      G[4] = G[0] * G[3] - G[1] * G[2];  // g'''' from (S1)
+      for (int k = 0; k < 4; ++k) {
+        I wz(0), Hm(1);
+        for (int m = 0; m <= cfg.p; ++m) {
+          wz = wz + wid(sp.c[k][m]) * Hm;
+          Hm = Hm * H;
+        }
+        wz = wz + wid(sp.E[k]) * Hm;
+        const I wg = mag(s_m) * wz + mag(G[k + 1]) * wS;
+        I fac = sig_m / R;
+        for (int i = 0; i < k; ++i) fac = fac * sig_m;
+        raise(k, (mag(fac) * wg + mag(G[k]) * wid(fac)) / I(2));
+      }
+    }
+    {
+      const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]);
+      const I sp_ = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;
+      for (const auto& st : run.steps) {
+        if (st.t0 > sig.upper()) break;
+        const I T = hull2(I(st.t0), I(st.t1));
+        std::array<I, 5> G;
+        for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_ab, eps, st.B[k]);
+        G[4] = G[0] * G[3] - G[1] * G[2];
+        for (int k = 0; k < 4; ++k) {
+          I sk(1);
+          for (int i = 0; i < k; ++i) sk = sk * sig;
+          const I dgk = model::reduced_g_ds(k, T, st.B[k], st.B[4 + k]);
+          const I d = (I(k + 1) * sk * sp_ * G[k] + sk * sig * (G[k + 1] * (T / sig) * sp_ + dgk)) / R;
+          raise(k, mag(d) * mag(ds));
+        }
+      }
+    }
+    // Second, direct bound over the bracket (coefficient and remainder widths of the run over [s_lo, s_hi],
+    // s-dependence at fixed u, shift of t): the smaller of the two sups holds.
+    std::array<I, 4> direct{I(0), I(0), I(0), I(0)};
+    {
+      const I wSv = wid(sig), wsv = wid(s_ab);
+      for (const auto& st : run.steps) {
+        if (st.t0 > sig.upper()) break;
+        const I T = hull2(I(st.t0), I(st.t1));
+        const I H(st.H.upper());
+        std::array<I, 5> G;
+        for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_ab, eps, st.B[k]);
+        G[4] = G[0] * G[3] - G[1] * G[2];
+        for (int k = 0; k < 4; ++k) {
+          I wz(0), Hm(1);
+          for (int m = 0; m <= cfg.p; ++m) {
+            wz = wz + wid(st.c[k][m]) * Hm;
+            Hm = Hm * H;
+          }
+          wz = wz + wid(st.E[k]) * Hm;
+          const I dsG = k == 0   ? T * T * T / I(6) + st.B[0]
+                        : k == 1 ? T * T / I(2) + st.B[1]
+                        : k == 2 ? T + st.B[2]
+                                 : I(1) + st.B[3];
+          const I wg = mag(dsG) * wsv + mag(s_ab) * wz + mag(G[k + 1]) * wSv;
+          I fac = sig / R;
+          for (int i = 0; i < k; ++i) fac = fac * sig;
+          const I w = (mag(fac) * wg + mag(G[k]) * wid(fac)) / I(2);
+          if (direct[k].upper() < w.upper()) direct[k] = I(w.upper());
+        }
+      }
+    }
+    for (int k = 0; k < 4; ++k)
+      if (direct[k].upper() < tube[k].upper()) tube[k] = direct[k];
+    // The two parts add (a sup of a sum is at most the sum of the sups).
+    for (int k = 0; k < 4; ++k) r.c3_error[k] = arith::upper_up(tube[k]);
+    // Structure and flow reversal (sign f^(k) = sign R · sign g^(k)).
+    Structure& S_ = r.structure;
+    const int fp0 = eps * sR;
+    std::vector<I> zeros;
+    for (int zi = 0; zi < nth; ++zi) zeros.push_back(isolate_zero(run, zi, s_ab, eps, cfg.p) / sig);
+    if (fp0 < 0) {
+      S_.label = "III";
+      S_.reason = "f'(0) = eps sigma^2 / R < 0 (reduced chart eps = " + std::to_string(eps) + ")";
+      S_.reversal = arith::Tri::yes;
+      S_.reversal_where.push_back({0.0, nth == 1 ? 1.0 : arith::lower_down(zeros[0])});
+    } else {
+      if (nth == 1) {
+        S_.reversal = arith::Tri::no;
+      } else {
+        S_.reversal = arith::Tri::yes;
+        S_.reversal_where.push_back({arith::upper_up(zeros[0]), arith::lower_down(zeros[1])});
+      }
+      bool neg_pp = true, initial = true;
+      for (const auto& sp : run.steps) {
+        if (sp.t0 > sig.upper()) break;
+        const I T = hull2(I(sp.t0), I(sp.t1));
+        const int q2 = sR * sgn(model::reduced_g(2, T, s_ab, eps, sp.B[2]));
+        if (q2 < 0) {
+          initial = false;
+          continue;
+        }
+        if (q2 == 0 && initial && sR * sgn(model::reduced_g(3, T, s_ab, eps, sp.B[3])) < 0) continue;
+        neg_pp = false;
+        break;
+      }
+      if (neg_pp && nth == 1) {
+        S_.label = "I";
+        S_.reason =
+            "f''' < 0 near the centre plane and f'' < 0 on the rest of (0,1] (certified step by step), f'(0) > 0";
+      } else {
+        S_.label = "unclassified";
+        for (const auto& sp : run.steps) {
+          if (sp.t1 > sig.lower()) break;
+          if (sR * sgn(model::reduced_g(2, I(sp.t1), s_ab, eps, sp.y1[2])) > 0) {
+            S_.label = "II";
+            char buf[160];
+            std::snprintf(buf, sizeof buf, "f'(0) > 0 and f'' > 0 at eta = t/sigma with t = %.6g", sp.t1);
+            S_.reason = buf;
+            break;
+          }
+        }
+      }
+    }
+    return "";
+  };
+  {
+    const auto parts = pieces(s_ab, std::clamp(static_cast<int>(rel_width(s_ab) / 1e-6), 1, 64));
+    for (std::size_t i = 0; i < parts.size(); ++i) {
+      ReducedResult q;
+      if (auto e = values_on(parts[i], q); !e.empty()) return fail(Part::integration, e);
+      if (i == 0) {
+        r.value = q.value;
+        r.value_lo = q.value_lo;
+        r.value_hi = q.value_hi;
+        r.c3_error = q.c3_error;
+        r.structure = q.structure;
+        r.steps = q.steps;
+        continue;
+      }
+      for (int k = 0; k < 4; ++k) {
+        r.value[k] = hull2(r.value[k], q.value[k]);
+        r.c3_error[k] = std::max(r.c3_error[k], q.c3_error[k]);
+      }
+      if (q.structure.label != r.structure.label || q.structure.reversal != r.structure.reversal) {
+        r.structure = Structure{};
+        r.structure.label = "unclassified";
+        r.structure.reason = "the pieces of the bracket do not share one certified structure";
+      }
+    }
+    if (parts.size() > 1) {
+      // Outward decimals of the hulls (the per-piece strings were of the pieces).
+      for (int k = 0; k < 4; ++k) {
+        r.value_lo[k] = arith::decimal_lower(r.value[k]);
+        r.value_hi[k] = arith::decimal_upper(r.value[k]);
+      }
+      r.log.push_back("values: hull over " + std::to_string(parts.size()) + " pieces of the bracket");
     }
   }
   r.certified = true;
@@ -578,33 +687,44 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
         "no candidate: reduced shooting did not converge from s = " + std::to_string(static_cast<double>(s_guess));
     return fail;
   }
-  const auto shot = candidate::reduced_shoot(br, *sbar);
   const int bits = precision_bits != 0 ? precision_bits : (std::fabs(*sbar) > 1e-140L ? 53 : 128);
-  const long double dR = std::fabs(shot.dR_ds);
-  const long double half = 0.5L * (arith::upper_up(Rint) - arith::lower_down(Rint));
-  const long double margin = (bits <= 53 ? 1e-13L : std::ldexp(1.0L, -std::min(bits, 60) + 10)) * (1 + std::fabs(Rmid));
-  long double ds = (half + margin) / dR;
-  long double rho = 0.25L * std::fabs(*sbar);
+  const long double R0 = arith::lower_down(Rint), R1 = arith::upper_up(Rint);
+  long double margin = (bits <= 53 ? 1e-13L : std::ldexp(1.0L, -std::min(bits, 60) + 10)) * (1 + std::fabs(Rmid));
   std::vector<std::string> log;
   log.push_back("candidate: reduced shooting, eps = " + std::to_string(eps) + ", zero " + std::to_string(nth) +
                 ", s = " + exact_string(*sbar, 53));
+  // Bracket ends: the (non-rigorous) s where R(s) = R0 - margin and R1 + margin; R is monotone near s̄.
+  std::optional<long double> sa, sb;
+  auto solve_ends = [&]() {
+    sa = candidate::reduced_solve(br, R0 - margin, *sbar);
+    sb = candidate::reduced_solve(br, R1 + margin, *sbar);
+    if (sa && sb && *sa > *sb) std::swap(sa, sb);
+    return sa && sb;
+  };
+  if (!solve_ends()) {
+    fail.failure = "no candidate: reduced shooting did not reach the ends of the R interval";
+    fail.log = log;
+    return fail;
+  }
+  long double rho = std::max(std::fabs(*sbar) / 32, 2 * (*sb - *sa));  // S about s̄: uniqueness set
   for (int attempt = 0; attempt < 12; ++attempt) {
-    if (rho < 2 * ds) rho = 2 * ds;
-    const long double sa = *sbar - ds, sb = *sbar + ds, SA = *sbar - rho, SB = *sbar + rho;
-    Proved p = prove_any(R_lo, R_hi, eps, nth, exact_string(sa, bits), exact_string(sb, bits), exact_string(SA, bits),
+    const long double lo = std::min(*sa, *sbar), hi = std::max(*sb, *sbar);
+    const long double SA = std::min(lo, *sbar - rho), SB = std::max(hi, *sbar + rho);
+    Proved p = prove_any(R_lo, R_hi, eps, nth, exact_string(*sa, bits), exact_string(*sb, bits), exact_string(SA, bits),
                          exact_string(SB, bits), bits);
     log.insert(log.end(), p.r.log.begin(), p.r.log.end());
     if (p.r.certified) {
       p.r.log = log;
-      p.r.existence_radius = static_cast<double>(ds) * (1 + 1e-15);
-      p.r.uniqueness_radius = static_cast<double>(rho) * (1 - 1e-15);
+      p.r.existence_radius = static_cast<double>(std::max(*sbar - *sa, *sb - *sbar)) * (1 + 1e-15);
+      p.r.uniqueness_radius = static_cast<double>(std::min(*sbar - SA, SB - *sbar)) * (1 - 1e-15);
       return p.r;
     }
     if (p.part == Part::bracket) {
-      ds *= 8;
+      margin *= 8;
+      if (!solve_ends()) break;
       log.push_back("remedy: wider bracket");
-    } else if (p.part == Part::uniqueness && rho > 4 * ds) {
-      rho /= 8;
+    } else if (p.part == Part::uniqueness && rho > 0) {
+      rho = rho / 8 < (*sb - *sa) / 4 ? 0 : rho / 8;  // last try: S = the bracket itself
       log.push_back("remedy: smaller uniqueness set");
     } else {
       p.r.log = log;
