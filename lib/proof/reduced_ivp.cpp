@@ -287,6 +287,58 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
   return run;
 }
 
+// Magnitude and width of an interval, as intervals (no double overflow for MPFR magnitudes).
+template <Interval I>
+I mag(const I& x) {
+  return I(boost::numeric::norm(x));
+}
+template <Interval I>
+I wid(const I& x) {
+  return I(x.upper()) - I(x.lower());
+}
+
+// Boxes of g, g', g'', g''', g'''' over a step (S4), g'''' = g g''' − g' g'' from (S1).
+template <Interval I>
+std::array<I, 5> g_boxes(const StepData<I>& st, const I& T, const I& s, int eps) {
+  std::array<I, 5> G;
+  for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s, eps, st.B[k]);
+  G[4] = G[0] * G[3] - G[1] * G[2];
+  return G;
+}
+
+// Direct tube bound (S11) of a run with s in s and σ in sig: per step and k, half the width of the
+// pointwise enclosure of f^(k) = σ^{k+1} g^(k)(σ η)/R — coefficient and remainder widths of u^(k),
+// the s-dependence at fixed u (∂g^(k)/∂s|_u · width s) and the shift t = σ η (|g^(k+1)| · width σ).
+template <Interval I>
+std::array<I, 4> tube_direct(const Run<I>& run, const I& s, const I& sig, const I& R, int eps, int p) {
+  std::array<I, 4> out{I(0), I(0), I(0), I(0)};
+  const I wS = wid(sig), ws = wid(s);
+  for (const auto& st : run.steps) {
+    if (st.t0 > sig.upper()) break;
+    const I T = hull2(I(st.t0), I(st.t1));
+    const I H(st.H.upper());
+    const auto G = g_boxes(st, T, s, eps);
+    for (int k = 0; k < 4; ++k) {
+      I wz(0), Hm(1);
+      for (int m = 0; m <= p; ++m) {
+        wz = wz + wid(st.c[k][m]) * Hm;
+        Hm = Hm * H;
+      }
+      wz = wz + wid(st.E[k]) * Hm;
+      const I dsG = k == 0   ? T * T * T / I(6) + st.B[0]
+                    : k == 1 ? T * T / I(2) + st.B[1]
+                    : k == 2 ? T + st.B[2]
+                             : I(1) + st.B[3];
+      const I wg = mag(dsG) * ws + mag(s) * wz + mag(G[k + 1]) * wS;
+      I fac = sig / R;
+      for (int i = 0; i < k; ++i) fac = fac * sig;
+      const I w = (mag(fac) * wg + mag(G[k]) * wid(fac)) / I(2);
+      if (out[k].upper() < w.upper()) out[k] = I(w.upper());
+    }
+  }
+  return out;
+}
+
 // Narrows the interval holding the zero of g' of the given run (monotone there) by bisection on
 // pointwise enclosures; returns Σ with the zero in its interior.
 template <Interval I>
@@ -473,88 +525,31 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
       }
     }
 
-    // Tube half-widths (S11): at s_m, the width of the pointwise enclosure of g^(k) (coefficient and
-    // remainder widths) and of the shift t = σ η, σ ∈ Σ; plus sup |∂f^(k)/∂s| · |s − s_m| over the bracket.
-    auto mag = [](const I& x) { return I(boost::numeric::norm(x)); };
-    auto wid = [](const I& x) { return I(x.upper()) - I(x.lower()); };
-    std::array<I, 4> tube{I(0), I(0), I(0), I(0)};
-    auto raise = [&](int k, const I& w) {
-      if (tube[k].upper() < w.upper()) tube[k] = I(w.upper());
-    };
-    const I wS = wid(sig_m);
-    for (const auto& sp : mrun.steps) {
-      if (sp.t0 > sig_m.upper()) break;
-      const I T = hull2(I(sp.t0), I(sp.t1));
-      const I H(sp.H.upper());
-      std::array<I, 5> G;
-      for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_m, eps, sp.B[k]);
-      G[4] = G[0] * G[3] - G[1] * G[2];  // g'''' from (S1)
-      for (int k = 0; k < 4; ++k) {
-        I wz(0), Hm(1);
-        for (int m = 0; m <= cfg.p; ++m) {
-          wz = wz + wid(sp.c[k][m]) * Hm;
-          Hm = Hm * H;
-        }
-        wz = wz + wid(sp.E[k]) * Hm;
-        const I wg = mag(s_m) * wz + mag(G[k + 1]) * wS;
-        I fac = sig_m / R;
-        for (int i = 0; i < k; ++i) fac = fac * sig_m;
-        raise(k, (mag(fac) * wg + mag(G[k]) * wid(fac)) / I(2));
-      }
-    }
+    // Tube half-widths (S11): the smaller of (a) the direct bound at s_m plus sup |∂f^(k)/∂s| · |s − s_m|
+    // over the bracket (a sup of a sum is at most the sum of the sups) and (b) the direct bound over
+    // the whole bracket.
+    const auto thin = tube_direct(mrun, s_m, sig_m, R, eps, cfg.p);
+    const auto direct = tube_direct(run, s_ab, sig, R, eps, cfg.p);
+    std::array<I, 4> slope{I(0), I(0), I(0), I(0)};
     {
       const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]);
       const I sp_ = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;
       for (const auto& st : run.steps) {
         if (st.t0 > sig.upper()) break;
         const I T = hull2(I(st.t0), I(st.t1));
-        std::array<I, 5> G;
-        for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_ab, eps, st.B[k]);
-        G[4] = G[0] * G[3] - G[1] * G[2];
+        const auto G = g_boxes(st, T, s_ab, eps);
         for (int k = 0; k < 4; ++k) {
           I sk(1);
           for (int i = 0; i < k; ++i) sk = sk * sig;
           const I dgk = model::reduced_g_ds(k, T, st.B[k], st.B[4 + k]);
           const I d = (I(k + 1) * sk * sp_ * G[k] + sk * sig * (G[k + 1] * (T / sig) * sp_ + dgk)) / R;
-          raise(k, mag(d) * mag(ds));
-        }
-      }
-    }
-    // Second, direct bound over the bracket (coefficient and remainder widths of the run over [s_lo, s_hi],
-    // s-dependence at fixed u, shift of t): the smaller of the two sups holds.
-    std::array<I, 4> direct{I(0), I(0), I(0), I(0)};
-    {
-      const I wSv = wid(sig), wsv = wid(s_ab);
-      for (const auto& st : run.steps) {
-        if (st.t0 > sig.upper()) break;
-        const I T = hull2(I(st.t0), I(st.t1));
-        const I H(st.H.upper());
-        std::array<I, 5> G;
-        for (int k = 0; k < 4; ++k) G[k] = model::reduced_g(k, T, s_ab, eps, st.B[k]);
-        G[4] = G[0] * G[3] - G[1] * G[2];
-        for (int k = 0; k < 4; ++k) {
-          I wz(0), Hm(1);
-          for (int m = 0; m <= cfg.p; ++m) {
-            wz = wz + wid(st.c[k][m]) * Hm;
-            Hm = Hm * H;
-          }
-          wz = wz + wid(st.E[k]) * Hm;
-          const I dsG = k == 0   ? T * T * T / I(6) + st.B[0]
-                        : k == 1 ? T * T / I(2) + st.B[1]
-                        : k == 2 ? T + st.B[2]
-                                 : I(1) + st.B[3];
-          const I wg = mag(dsG) * wsv + mag(s_ab) * wz + mag(G[k + 1]) * wSv;
-          I fac = sig / R;
-          for (int i = 0; i < k; ++i) fac = fac * sig;
-          const I w = (mag(fac) * wg + mag(G[k]) * wid(fac)) / I(2);
-          if (direct[k].upper() < w.upper()) direct[k] = I(w.upper());
+          const I w = mag(d) * mag(ds);
+          if (slope[k].upper() < w.upper()) slope[k] = I(w.upper());
         }
       }
     }
     for (int k = 0; k < 4; ++k)
-      if (direct[k].upper() < tube[k].upper()) tube[k] = direct[k];
-    // The two parts add (a sup of a sum is at most the sum of the sups).
-    for (int k = 0; k < 4; ++k) r.c3_error[k] = arith::upper_up(tube[k]);
+      r.c3_error[k] = std::min(arith::upper_up(thin[k] + slope[k]), arith::upper_up(direct[k]));
     // Structure and flow reversal (sign f^(k) = sign R · sign g^(k)).
     Structure& S_ = r.structure;
     const int fp0 = eps * sR;
