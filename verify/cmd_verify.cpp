@@ -4,6 +4,7 @@
 
 #include "certificate/certificate.hpp"
 #include "commands.hpp"
+#include "model_options.hpp"
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
 #include "proof/direct.hpp"
@@ -17,6 +18,7 @@ namespace {
 struct VerifyOptions {
   std::string case_file, R, branch, start, json, method = "newton";
   int precision = 0, modes = 0;
+  ModelOptions mo;
 };
 
 std::pair<double, double> parse_start(const std::string& s) {
@@ -35,7 +37,8 @@ std::pair<double, double> parse_start(const std::string& s) {
 
 void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, const std::string& R_hi,
                    const std::string& branch) {
-  std::printf("porecert verify: Berman half-channel, R = %s%s%s, branch %s\n", R_lo.c_str(), R_lo == R_hi ? "" : " .. ",
+  std::printf("porecert verify: %s, R = %s%s%s, branch %s\n", model::describe(o.model).c_str(), R_lo.c_str(),
+              R_lo == R_hi ? "" : " .. ",
               R_lo == R_hi ? "" : R_hi.c_str(), branch.empty() ? "(unlabelled)" : branch.c_str());
   std::printf(
       "  candidate: %d Chebyshev modes, %s\n", o.modes,
@@ -48,8 +51,18 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
   }
   std::printf("  CERTIFIED: a true solution lies within %.3g of the candidate and is the only one within %.3g\n",
               o.existence_radius, o.uniqueness_radius);
-  std::printf("             (l1 norm of (f'(0), K, Chebyshev coefficients of f'''))\n");
+  std::printf("             (l1 norm of (%s, K, Chebyshev coefficients of %s'''))\n",
+              model::free_constant_text(o.model).c_str(), o.model.half_channel() ? "f" : "g");
   std::printf("  sup|f^(k) - candidate^(k)| <= %.3g for k = 0..3\n", o.c3_error[3]);
+  if (!o.model.is_berman()) {  // the model's own value keys (docs/models.md)
+    for (const auto& nv : o.values)
+      std::printf("  %-8s in [%s, %s]   (%s)\n", nv.key.c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str(),
+                  nv.meaning.c_str());
+    if (!o.structure.label.empty())
+      std::printf("  structure: type %s (%s)\n", o.structure.label.c_str(), o.structure.reason.c_str());
+    std::printf("  time %.2f s. %s\n", o.seconds, certificate::kCaution);
+    return;
+  }
   std::printf("  f'(0)   in [%s, %s]\n", o.fp0.lo.c_str(), o.fp0.hi.c_str());
   std::printf("  f'''(0) in [%s, %s]\n", o.fppp0.lo.c_str(), o.fppp0.hi.c_str());
   std::printf("  f''(1)  in [%s, %s]   (wall shear)\n", o.fpp1.lo.c_str(), o.fpp1.hi.c_str());
@@ -105,6 +118,9 @@ int run_verify(const VerifyOptions& v) {
     if (c.precision_bits) req.precision_bits = *c.precision_bits;
     if (c.certificate && json_path.empty()) json_path = *c.certificate;
     prob.scenario = c.title;
+    req.model = spec_from(v.mo, &c);
+  } else {
+    req.model = spec_from(v.mo);
   }
   if (!v.R.empty()) std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", v.R);
   if (req.R_lo.empty())
@@ -126,6 +142,12 @@ int run_verify(const VerifyOptions& v) {
     throw input_error("--modes: " + std::to_string(req.modes) + " is outside 8..4000");
   if (v.method != "newton" && v.method != "direct")
     throw input_error("--method: '" + v.method + "' is not a method (rule: newton or direct)");
+  if (!req.model.is_berman() && req.branch != "I" && !req.start)
+    throw input_error("--branch: '" + req.branch + "' is for Berman's model only (rule: with --model " +
+                      req.model.name + " use --branch I or --start a,b, or porecert branches)");
+  if (!req.model.is_berman() && v.method == "direct")
+    throw input_error("--method: 'direct' is for Berman's model only (rule: with --model " + req.model.name +
+                      " use newton)");
   if (v.method == "direct") return run_direct(req, json_path);
   prob.R_lo = req.R_lo;
   prob.R_hi = req.R_hi;
@@ -155,7 +177,7 @@ int run_verify(const VerifyOptions& v) {
   {  // C3-ball uniqueness: direct contraction about the Newton candidate (lib/proof/direct_candidate.hpp, D15-D25).
     const arith::Id R =
         boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
-    if (o.certified && boost::numeric::abs(R).upper() <= 2) {
+    if (o.certified && req.model.is_berman() && boost::numeric::abs(R).upper() <= 2) {
       const auto u = proof::c3_uniqueness_from_newton(o, R);
       cert["c3_uniqueness"] = proof::to_json(u);
       c3_line = u.direct.certified
@@ -191,6 +213,7 @@ Action register_verify(CLI::App& app) {
   sub->add_option(
       "--method", v->method,
       "Proof method: newton (Newton-Kantorovich about a candidate) or direct (contraction about the R = 0 profile)");
+  add_model_options(sub, v->mo);
   return [v] { return run_verify(*v); };
 }
 
@@ -250,7 +273,7 @@ Action register_recheck(CLI::App& app) {
     } catch (const certificate::format_error& e) {
       throw input_error(e.what());
     }
-    const auto o = proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+    const auto o = proof::recheck_model(s.model, s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
     std::printf("porecert recheck: %s (R = [%s, %s], %d modes, %d bits)\n", path->c_str(), s.problem.R_lo.c_str(),
                 s.problem.R_hi.c_str(), o.modes, o.precision_bits);
     if (s.status != "certified") {
@@ -266,16 +289,22 @@ Action register_recheck(CLI::App& app) {
     if (!ok)
       std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius,
                   s.existence_radius);
-    const proof::Enclosure* mine[4] = {&o.fp0, &o.fppp0, &o.fpp1, &o.K};
-    const char* names[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
     // Compare decimal strings exactly: rounding both the same way at 1024 bits preserves their order.
     arith::PrecisionScope exact(1024);
     auto num = [](const std::string& d) { return arith::from_decimal<arith::Im>(d).lower(); };
-    for (int i = 0; i < 4; ++i) {
-      if (!(num(s.values[i][0]) <= num(mine[i]->lo) && num(mine[i]->hi) <= num(s.values[i][1]))) {
-        // The stated enclosure must contain the re-proved one.
-        std::printf("  REJECTED: stated %s = [%s, %s] does not contain the re-proved [%s, %s]\n", names[i],
-                    s.values[i][0].c_str(), s.values[i][1].c_str(), mine[i]->lo.c_str(), mine[i]->hi.c_str());
+    // Every stated value (the model's keys, docs/models.md) must contain the re-proved one.
+    for (const auto& nv : o.values) {
+      const std::array<std::string, 2>* stated = nullptr;
+      for (const auto& [k, v] : s.named_values)
+        if (k == nv.key) stated = &v;
+      if (!stated) {
+        std::printf("  REJECTED: the certificate states no value for %s\n", nv.key.c_str());
+        ok = false;
+        continue;
+      }
+      if (!(num((*stated)[0]) <= num(nv.enc.lo) && num(nv.enc.hi) <= num((*stated)[1]))) {
+        std::printf("  REJECTED: stated %s = [%s, %s] does not contain the re-proved [%s, %s]\n", nv.key.c_str(),
+                    (*stated)[0].c_str(), (*stated)[1].c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str());
         ok = false;
       }
     }

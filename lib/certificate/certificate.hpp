@@ -31,7 +31,9 @@ struct Stored {
   int precision_bits = 53;
   std::vector<std::string> candidate_hex;
   double existence_radius = 0;
-  std::array<std::array<std::string, 2>, 4> values;  // f'(0), f'''(0), f''(1), K
+  std::array<std::array<std::string, 2>, 4> values;  // f'(0), f'''(0), f''(1), K (half-channel models)
+  model::ModelSpec model;                            // from problem.model_name / model_parameters
+  std::vector<std::pair<std::string, std::array<std::string, 2>>> named_values;  // every `values` entry
 };
 Stored parse(const nlohmann::json& j);
 nlohmann::json read_file(const std::string& path);  // throws format_error on unreadable / invalid JSON

@@ -1,6 +1,7 @@
 #include "proof/branches.hpp"
 
 #include "candidate/branch_search.hpp"
+#include "candidate/model_search.hpp"
 
 namespace porecert::proof {
 
@@ -10,6 +11,9 @@ arith::Tri distinct(const CertifyOutcome& a, const CertifyOutcome& b) {
   const arith::Id* pb[4] = {&b.fp0_id, &b.K_id, &b.fpp1_id, &b.fppp0_id};
   for (int i = 0; i < 4; ++i)
     if (arith::tri_disjoint(*pa[i], *pb[i]) == arith::Tri::yes) return arith::Tri::yes;
+  for (const auto& va : a.values)  // the model's own value keys (docs/models.md)
+    for (const auto& vb : b.values)
+      if (va.key == vb.key && arith::tri_disjoint(va.id, vb.id) == arith::Tri::yes) return arith::Tri::yes;
   return arith::Tri::unsure;
 }
 
@@ -17,7 +21,8 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
   BranchesOutcome out;
   const arith::Id R =
       boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
-  const auto search = candidate::find_branches(arith::mid_double(R), req.max_modes);
+  const auto search = req.model.is_berman() ? candidate::find_branches(arith::mid_double(R), req.max_modes)
+                                             : candidate::find_model_solutions(req.model, arith::mid_double(R), req.max_modes);
   out.region = search.region;
   out.log = search.log;
   for (const auto& f : search.found) {

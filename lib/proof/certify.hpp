@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "arith/interval.hpp"
+#include "model/model_spec.hpp"
 #include "proof/structure.hpp"
 
 namespace porecert::proof {
@@ -24,11 +25,19 @@ struct CertifyRequest {
   // With automatic precision: when a value enclosure is relatively wider than this after a double
   // proof, the proof is redone about an MPFR-refined candidate (docs/method.md §M5).
   double target_rel_width = 1e-12;
+  model::ModelSpec model;  // default: Berman's half-channel problem (docs/models.md)
 };
 
 struct Enclosure {
   std::string lo, hi;  // outward decimal strings
   double lo_d = 0, hi_d = 0;
+};
+
+// One reported value of the model (model::ValueKey), enclosed.
+struct NamedValue {
+  std::string key, meaning;
+  Enclosure enc;
+  arith::Id id;
 };
 
 struct CertifyOutcome {
@@ -46,9 +55,16 @@ struct CertifyOutcome {
   double seconds = 0;
   Structure structure;                        // certified sign structure and branch label (when certified)
   arith::Id fp0_id, K_id, fpp1_id, fppp0_id;  // the value enclosures as double intervals
+  // The model proved and its reported values (docs/models.md). For Berman and the half-channel
+  // variants `values` repeats fp0, fppp0, fpp1, K; for the full channel fp0 .. K above are the
+  // raw [0,1]-variable quantities and `values` holds the η-scaled ones.
+  model::ModelSpec model;
+  std::string model_id;
+  std::vector<NamedValue> values;
 };
 
-// Runs the whole certification for Berman's half-channel problem.
+// Runs the whole certification for the model req.model (default: Berman's half-channel problem;
+// the name is kept for the callers that predate model specs).
 CertifyOutcome certify_berman(const CertifyRequest& req);
 // The proof part only, about a given (non-rigorous) Galerkin candidate in the model's layout.
 CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>& x_candidate);
@@ -56,5 +72,8 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
 // Re-runs the proof on a stored candidate (hex strings) at the stored precision: no solver.
 CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
                               const std::vector<std::string>& candidate_hex, int precision_bits);
+// The same for any model spec (recheck_berman is this with the default spec).
+CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_lo, const std::string& R_hi,
+                             const std::vector<std::string>& candidate_hex, int precision_bits);
 
 }  // namespace porecert::proof
