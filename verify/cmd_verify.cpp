@@ -237,7 +237,12 @@ int recheck_fold_file(const std::string& path, const nlohmann::json& j) {
   }
   proof::FoldOutcome o;
   try {
-    o = proof::recheck_fold(hex, j["candidate"]["precision_bits"].get<int>());
+    const std::string kind = j.contains("kind") && j["kind"].is_string() ? j["kind"].get<std::string>()
+                                                                          : "turning-point";
+    if (kind != "turning-point" && kind != "symmetry-breaking")
+      throw bad("key \"kind\" is \"" + kind + "\" (must be turning-point or symmetry-breaking)");
+    o = proof::recheck_fold(hex, j["candidate"]["precision_bits"].get<int>(),
+                            kind == "symmetry-breaking" ? proof::fold::kEvenPerturbation : proof::fold::kTurningPoint);
   } catch (const std::invalid_argument& e) {
     throw bad(e.what());
   }
