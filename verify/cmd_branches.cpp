@@ -37,8 +37,8 @@ Action register_branches(CLI::App& app) {
     const bool quiet = o->json == "-";
     if (!quiet)
       std::printf("porecert branches: %s, R = %s%s%s\n  searched: %s\n", model::describe(req.model).c_str(),
-                  req.R_lo.c_str(),
-                  req.R_lo == req.R_hi ? "" : " .. ", req.R_lo == req.R_hi ? "" : req.R_hi.c_str(), b.region.c_str());
+                  req.R_lo.c_str(), req.R_lo == req.R_hi ? "" : " .. ", req.R_lo == req.R_hi ? "" : req.R_hi.c_str(),
+                  b.region.c_str());
     for (std::size_t i = 0; i < b.solutions.size(); ++i) {
       const auto& s = b.solutions[i];
       certificate::Problem p{req.R_lo, req.R_hi, "", ""};

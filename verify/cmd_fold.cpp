@@ -126,13 +126,13 @@ Action register_fold(CLI::App& app) {
       int certified = 0;
       for (const auto& s : b.solutions) certified += s.certified ? 1 : 0;
       j[sb ? "above_point_check" : "below_fold_check"] = {{"R", below_R},
-                               {"solutions_found", b.solutions.size()},
-                               {"solutions_certified", certified},
-                               {"searched_region", b.region}};
+                                                          {"solutions_found", b.solutions.size()},
+                                                          {"solutions_certified", certified},
+                                                          {"searched_region", b.region}};
       if (!quiet)
         std::printf("  %s, R = %s: %zu solution(s) found (%d certified); searched: %s\n",
-                    sb ? "above the point" : "below the fold", below_R.c_str(),
-                    b.solutions.size(), certified, b.region.c_str());
+                    sb ? "above the point" : "below the fold", below_R.c_str(), b.solutions.size(), certified,
+                    b.region.c_str());
     }
     if (!quiet) std::printf("  %s\n", certificate::kCaution);
     if (!o->json.empty()) certificate::write_atomic(o->json, j.dump(2) + "\n");

@@ -38,8 +38,8 @@ std::pair<double, double> parse_start(const std::string& s) {
 void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, const std::string& R_hi,
                    const std::string& branch) {
   std::printf("porecert verify: %s, R = %s%s%s, branch %s\n", model::describe(o.model).c_str(), R_lo.c_str(),
-              R_lo == R_hi ? "" : " .. ",
-              R_lo == R_hi ? "" : R_hi.c_str(), branch.empty() ? "(unlabelled)" : branch.c_str());
+              R_lo == R_hi ? "" : " .. ", R_lo == R_hi ? "" : R_hi.c_str(),
+              branch.empty() ? "(unlabelled)" : branch.c_str());
   std::printf(
       "  candidate: %d Chebyshev modes, %s\n", o.modes,
       o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str());
@@ -237,8 +237,8 @@ int recheck_fold_file(const std::string& path, const nlohmann::json& j) {
   }
   proof::FoldOutcome o;
   try {
-    const std::string kind = j.contains("kind") && j["kind"].is_string() ? j["kind"].get<std::string>()
-                                                                          : "turning-point";
+    const std::string kind =
+        j.contains("kind") && j["kind"].is_string() ? j["kind"].get<std::string>() : "turning-point";
     if (kind != "turning-point" && kind != "symmetry-breaking")
       throw bad("key \"kind\" is \"" + kind + "\" (must be turning-point or symmetry-breaking)");
     o = proof::recheck_fold(hex, j["candidate"]["precision_bits"].get<int>(),

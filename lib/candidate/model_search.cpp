@@ -76,7 +76,8 @@ SearchReport find_model_solutions(const model::ModelSpec& spec, double R, int n_
   rep.region = "continuation in R from R = 0 at a, a - 1/2 and a + 1/2, the latter two then continued in a to a";
   if (model::decimal_as<double>(a_text) == 1.0) {
     const std::size_t n = rep.found.size();
-    for (std::size_t i = 0; i < n; ++i) add(mirror_full_channel(m, rep.found[i].x), "mirror image of " + rep.found[i].origin);
+    for (std::size_t i = 0; i < n; ++i)
+      add(mirror_full_channel(m, rep.found[i].x), "mirror image of " + rep.found[i].origin);
     rep.region += "; for a = 1 the mirror image of each";
   }
   return rep;

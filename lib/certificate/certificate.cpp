@@ -69,10 +69,10 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
   j["method"] = "newton-kantorovich";
   const std::string c0 = model::free_constant_text(spec);
   const std::string fn = spec.name == "full-channel" ? "g" : "f";
-  j["space"] = {{"description", "x = (" + c0 + ", K, u) with u = " + fn +
-                                    "''' as a Chebyshev series on [0,1]; norm |" + c0 +
-                                    "| + |K| + sum_k |u_k| (l1 of Chebyshev coefficients, weight 1 on every component)"},
-                {"weights", {{c0, 1}, {"K", 1}, {"u_k", "1 (nu = 1)"}}}};
+  j["space"] = {
+      {"description", "x = (" + c0 + ", K, u) with u = " + fn + "''' as a Chebyshev series on [0,1]; norm |" + c0 +
+                          "| + |K| + sum_k |u_k| (l1 of Chebyshev coefficients, weight 1 on every component)"},
+      {"weights", {{c0, 1}, {"K", 1}, {"u_k", "1 (nu = 1)"}}}};
   j["existence_radius"] = up_str(o.existence_radius);
   j["uniqueness_radius"] = down_str(o.uniqueness_radius);
   j["uniqueness"] = o.certified
@@ -106,13 +106,14 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
                  {"Z2", up_str(o.Z2)},
                  {"norm_A", up_str(o.A_norm)},
                  {"radii_polynomial", "p(r) = Z2 r^2 - (1 - max(Z0, Z1)) r + Y0 < 0 at r = existence_radius"}};
-  j["candidate"] = {{"modes", o.modes},
-                    {"arithmetic", o.precision_bits <= 53 ? "double intervals" : "MPFR intervals"},
-                    {"precision_bits", o.precision_bits},
-                    {"layout", spec.name == "full-channel"
-                                   ? "[g''(0), K_x, u_0, ..., u_{N-1}], u = g''' = sum u_k T_k(2 x - 1), x = (eta + 1)/2"
-                                   : "[f'(0), K, u_0, ..., u_{N-1}], u = f''' = sum u_k T_k(2 eta - 1)"},
-                    {"coefficients_hex", o.candidate_hex}};
+  j["candidate"] = {
+      {"modes", o.modes},
+      {"arithmetic", o.precision_bits <= 53 ? "double intervals" : "MPFR intervals"},
+      {"precision_bits", o.precision_bits},
+      {"layout", spec.name == "full-channel"
+                     ? "[g''(0), K_x, u_0, ..., u_{N-1}], u = g''' = sum u_k T_k(2 x - 1), x = (eta + 1)/2"
+                     : "[f'(0), K, u_0, ..., u_{N-1}], u = f''' = sum u_k T_k(2 eta - 1)"},
+      {"coefficients_hex", o.candidate_hex}};
   j["log"] = o.log;
   j["seconds"] = o.seconds;
   j["caution"] = kCaution;

@@ -44,8 +44,8 @@ ModelSpec checked(ModelSpec spec) {
   const auto allowed = parameters_of(spec.name);
   for (const auto& [k, v] : spec.params) {
     if (std::find(allowed.begin(), allowed.end(), k) == allowed.end())
-      throw input_error("--" + k + ": not a parameter of --model " + spec.name + " (rule: it takes " +
-                        joined(allowed) + ")");
+      throw input_error("--" + k + ": not a parameter of --model " + spec.name + " (rule: it takes " + joined(allowed) +
+                        ")");
     arith::Id x;
     try {
       x = arith::from_decimal<arith::Id>(v);

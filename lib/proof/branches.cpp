@@ -21,8 +21,9 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
   BranchesOutcome out;
   const arith::Id R =
       boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
-  const auto search = req.model.is_berman() ? candidate::find_branches(arith::mid_double(R), req.max_modes)
-                                             : candidate::find_model_solutions(req.model, arith::mid_double(R), req.max_modes);
+  const auto search = req.model.is_berman()
+                          ? candidate::find_branches(arith::mid_double(R), req.max_modes)
+                          : candidate::find_model_solutions(req.model, arith::mid_double(R), req.max_modes);
   out.region = search.region;
   out.log = search.log;
   for (const auto& f : search.found) {
