@@ -93,3 +93,18 @@ TEST_CASE("case file [model] table, and --slip on the plain model") {
   r = porecert("branches --R 3 --model mhd --hartmann 2");
   CHECK(r.rc == 0);
 }
+
+TEST_CASE("porecert fold --model full-channel --kind symmetry-breaking prints fold_R; recheck confirms") {
+  std::system(("mkdir -p " + tmp).c_str());
+  auto r = porecert("fold --model full-channel --kind symmetry-breaking --no-below-check --json -");
+  REQUIRE(r.rc == 0);
+  CHECK(r.out.find("\"fold_R\"") != std::string::npos);
+  CHECK(r.out.find("\"kind\": \"symmetry-breaking\"") != std::string::npos);
+  spit(tmp + "/sb.json", r.out);
+  r = porecert("recheck " + tmp + "/sb.json");
+  CHECK(r.rc == 0);
+  CHECK(r.out.find("CONFIRMED") != std::string::npos);
+  r = porecert("fold --model full-channel");  // the full channel has no turning-point computation
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("--kind") != std::string::npos);
+}
