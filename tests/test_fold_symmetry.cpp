@@ -58,7 +58,8 @@ std::array<LD, 4> shoot4(const std::array<LD, 4>& p) {
     d[7] = R * (s[0] * s[7] + s[4] * s[3] - s[1] * s[6] - s[5] * s[2]);
   };
   boost::numeric::odeint::runge_kutta_fehlberg78<St8, LD> st;
-  boost::numeric::odeint::integrate_n_steps(st, rhs, y, LD(0), LD(1) / 400, 400);
+  const LD h = LD(1) / 400;
+  for (int i = 0; i < 400; ++i) st.do_step(rhs, y, i * h, h);
   return {y[0] - 1, y[1], y[4], y[5]};
 }
 }  // namespace
