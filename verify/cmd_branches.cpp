@@ -3,6 +3,7 @@
 
 #include "certificate/certificate.hpp"
 #include "commands.hpp"
+#include "model_options.hpp"
 #include "proof/branches.hpp"
 
 namespace porecert::cli {
@@ -12,13 +13,16 @@ Action register_branches(CLI::App& app) {
   struct Opts {
     std::string R, json;
     int precision = 0;
+    ModelOptions mo;
   };
   auto o = std::make_shared<Opts>();
   sub->add_option("--R", o->R, "Wall Reynolds number: VALUE or LO:HI")->required();
   sub->add_option("--json", o->json, "Write the result (JSON) to PATH, or - for stdout");
   sub->add_option("--precision", o->precision, "Interval precision in bits (default: automatic)");
+  add_model_options(sub, o->mo);
   return [o] {
     proof::CertifyRequest req;
+    req.model = spec_from(o->mo);
     std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", o->R);
     if (o->precision != 0 && (o->precision < 53 || o->precision > 4096))
       throw input_error("--precision: " + std::to_string(o->precision) + " is outside 53..4096 bits");
@@ -32,8 +36,9 @@ Action register_branches(CLI::App& app) {
     j["solutions"] = nlohmann::json::array();
     const bool quiet = o->json == "-";
     if (!quiet)
-      std::printf("porecert branches: Berman half-channel, R = %s%s%s\n  searched: %s\n", req.R_lo.c_str(),
-                  req.R_lo == req.R_hi ? "" : " .. ", req.R_lo == req.R_hi ? "" : req.R_hi.c_str(), b.region.c_str());
+      std::printf("porecert branches: %s, R = %s%s%s\n  searched: %s\n", model::describe(req.model).c_str(),
+                  req.R_lo.c_str(), req.R_lo == req.R_hi ? "" : " .. ", req.R_lo == req.R_hi ? "" : req.R_hi.c_str(),
+                  b.region.c_str());
     for (std::size_t i = 0; i < b.solutions.size(); ++i) {
       const auto& s = b.solutions[i];
       certificate::Problem p{req.R_lo, req.R_hi, "", ""};
@@ -43,6 +48,15 @@ Action register_branches(CLI::App& app) {
       if (quiet) continue;
       if (!s.certified) {
         std::printf("  [%zu] NOT CERTIFIED (%s): %s\n", i + 1, b.origins[i].c_str(), s.failure.c_str());
+        continue;
+      }
+      if (!req.model.is_berman()) {  // the model's own value keys (docs/models.md)
+        std::printf("  [%zu] %s%s\n", i + 1, s.structure.label.empty() ? "" : ("type " + s.structure.label).c_str(),
+                    s.structure.label.empty() ? "(unlabelled)" : "");
+        for (const auto& nv : s.values)
+          std::printf("        %-8s in [%s, %s]\n", nv.key.c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str());
+        std::printf("        existence radius %.3g, unique within %.3g; found by %s\n", s.existence_radius,
+                    s.uniqueness_radius, b.origins[i].c_str());
         continue;
       }
       std::printf("  [%zu] type %-3s f'(0) in [%s, %s]\n        f''(1) in [%s, %s]  K in [%s, %s]\n", i + 1,

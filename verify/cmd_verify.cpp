@@ -4,6 +4,7 @@
 
 #include "certificate/certificate.hpp"
 #include "commands.hpp"
+#include "model_options.hpp"
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
 #include "proof/direct.hpp"
@@ -17,6 +18,7 @@ namespace {
 struct VerifyOptions {
   std::string case_file, R, branch, start, json, method = "auto";
   int precision = 0, modes = 0;
+  ModelOptions mo;
 };
 
 std::pair<double, double> parse_start(const std::string& s) {
@@ -35,8 +37,9 @@ std::pair<double, double> parse_start(const std::string& s) {
 
 void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, const std::string& R_hi,
                    const std::string& branch) {
-  std::printf("porecert verify: Berman half-channel, R = %s%s%s, branch %s\n", R_lo.c_str(), R_lo == R_hi ? "" : " .. ",
-              R_lo == R_hi ? "" : R_hi.c_str(), branch.empty() ? "(unlabelled)" : branch.c_str());
+  std::printf("porecert verify: %s, R = %s%s%s, branch %s\n", model::describe(o.model).c_str(), R_lo.c_str(),
+              R_lo == R_hi ? "" : " .. ", R_lo == R_hi ? "" : R_hi.c_str(),
+              branch.empty() ? "(unlabelled)" : branch.c_str());
   const std::string arith_text =
       o.precision_bits <= 53 ? "double intervals" : "MPFR " + std::to_string(o.precision_bits) + " bits";
   if (o.reduced) {
@@ -67,8 +70,18 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
   } else {
     std::printf("  CERTIFIED: a true solution lies within %.3g of the candidate and is the only one within %.3g\n",
                 o.existence_radius, o.uniqueness_radius);
-    std::printf("             (l1 norm of (f'(0), K, Chebyshev coefficients of f'''))\n");
+    std::printf("             (l1 norm of (%s, K, Chebyshev coefficients of %s'''))\n",
+                model::free_constant_text(o.model).c_str(), o.model.half_channel() ? "f" : "g");
     std::printf("  sup|f^(k) - candidate^(k)| <= %.3g for k = 0..3\n", o.c3_error[3]);
+  }
+  if (!o.model.is_berman()) {  // the model's own value keys (docs/models.md)
+    for (const auto& nv : o.values)
+      std::printf("  %-8s in [%s, %s]   (%s)\n", nv.key.c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str(),
+                  nv.meaning.c_str());
+    if (!o.structure.label.empty())
+      std::printf("  structure: type %s (%s)\n", o.structure.label.c_str(), o.structure.reason.c_str());
+    std::printf("  time %.2f s. %s\n", o.seconds, certificate::kCaution);
+    return;
   }
   std::printf("  f'(0)   in [%s, %s]\n", o.fp0.lo.c_str(), o.fp0.hi.c_str());
   std::printf("  f'''(0) in [%s, %s]\n", o.fppp0.lo.c_str(), o.fppp0.hi.c_str());
@@ -125,6 +138,9 @@ int run_verify(const VerifyOptions& v) {
     if (c.precision_bits) req.precision_bits = *c.precision_bits;
     if (c.certificate && json_path.empty()) json_path = *c.certificate;
     prob.scenario = c.title;
+    req.model = spec_from(v.mo, &c);
+  } else {
+    req.model = spec_from(v.mo);
   }
   if (!v.R.empty()) std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", v.R);
   if (req.R_lo.empty())
@@ -146,6 +162,12 @@ int run_verify(const VerifyOptions& v) {
     throw input_error("--modes: " + std::to_string(req.modes) + " is outside 8..4000");
   if (v.method != "auto" && v.method != "newton" && v.method != "direct" && v.method != "reduced")
     throw input_error("--method: '" + v.method + "' is not a method (rule: auto, newton, reduced or direct)");
+  if (!req.model.is_berman() && req.branch != "I" && !req.start)
+    throw input_error("--branch: '" + req.branch + "' is for Berman's model only (rule: with --model " +
+                      req.model.name + " use --branch I or --start a,b, or porecert branches)");
+  if (!req.model.is_berman() && (v.method == "direct" || v.method == "reduced"))
+    throw input_error("--method: '" + v.method + "' is for Berman's model only (rule: with --model " + req.model.name +
+                      " use newton or auto)");
   if (v.method == "direct") return run_direct(req, json_path);
   req.method = v.method;
   prob.R_lo = req.R_lo;
@@ -178,7 +200,7 @@ int run_verify(const VerifyOptions& v) {
   {  // C3-ball uniqueness: direct contraction about the Newton candidate (lib/proof/direct_candidate.hpp, D15-D25).
     const arith::Id R =
         boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
-    if (o.certified && boost::numeric::abs(R).upper() <= 2) {
+    if (o.certified && req.model.is_berman() && boost::numeric::abs(R).upper() <= 2) {
       const auto u = proof::c3_uniqueness_from_newton(o, R);
       cert["c3_uniqueness"] = proof::to_json(u);
       c3_line = u.direct.certified
@@ -216,6 +238,7 @@ Action register_verify(CLI::App& app) {
       "Proof method: auto (default), newton (Newton-Kantorovich about a Chebyshev candidate), reduced (validated "
       "Taylor integration of the symmetry-reduced ODE, docs/method.md S) or direct (contraction about the R = 0 "
       "profile)");
+  add_model_options(sub, v->mo);
   return [v] { return run_verify(*v); };
 }
 
@@ -239,7 +262,12 @@ int recheck_fold_file(const std::string& path, const nlohmann::json& j) {
   }
   proof::FoldOutcome o;
   try {
-    o = proof::recheck_fold(hex, j["candidate"]["precision_bits"].get<int>());
+    const std::string kind =
+        j.contains("kind") && j["kind"].is_string() ? j["kind"].get<std::string>() : "turning-point";
+    if (kind != "turning-point" && kind != "symmetry-breaking")
+      throw bad("key \"kind\" is \"" + kind + "\" (must be turning-point or symmetry-breaking)");
+    o = proof::recheck_fold(hex, j["candidate"]["precision_bits"].get<int>(),
+                            kind == "symmetry-breaking" ? proof::fold::kEvenPerturbation : proof::fold::kTurningPoint);
   } catch (const std::invalid_argument& e) {
     throw bad(e.what());
   }
@@ -279,7 +307,7 @@ Action register_recheck(CLI::App& app) {
         s.method == "reduced-ivp"
             ? proof::outcome_of(proof::reduced_prove(s.problem.R_lo, s.problem.R_hi, s.eps, s.nth, s.reduced_s[0],
                                                      s.reduced_s[1], s.reduced_s[2], s.reduced_s[3], s.precision_bits))
-            : proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+            : proof::recheck_model(s.model, s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
     std::printf("porecert recheck: %s (R = [%s, %s], %s, %d bits)\n", path->c_str(), s.problem.R_lo.c_str(),
                 s.problem.R_hi.c_str(),
                 s.method == "reduced-ivp" ? "reduced ODE" : (std::to_string(o.modes) + " modes").c_str(),
@@ -297,16 +325,22 @@ Action register_recheck(CLI::App& app) {
     if (!ok)
       std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius,
                   s.existence_radius);
-    const proof::Enclosure* mine[4] = {&o.fp0, &o.fppp0, &o.fpp1, &o.K};
-    const char* names[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
     // Compare decimal strings exactly: rounding both the same way at 1024 bits preserves their order.
     arith::PrecisionScope exact(1024);
     auto num = [](const std::string& d) { return arith::from_decimal<arith::Im>(d).lower(); };
-    for (int i = 0; i < 4; ++i) {
-      if (!(num(s.values[i][0]) <= num(mine[i]->lo) && num(mine[i]->hi) <= num(s.values[i][1]))) {
-        // The stated enclosure must contain the re-proved one.
-        std::printf("  REJECTED: stated %s = [%s, %s] does not contain the re-proved [%s, %s]\n", names[i],
-                    s.values[i][0].c_str(), s.values[i][1].c_str(), mine[i]->lo.c_str(), mine[i]->hi.c_str());
+    // Every stated value (the model's keys, docs/models.md) must contain the re-proved one.
+    for (const auto& nv : o.values) {
+      const std::array<std::string, 2>* stated = nullptr;
+      for (const auto& [k, v] : s.named_values)
+        if (k == nv.key) stated = &v;
+      if (!stated) {
+        std::printf("  REJECTED: the certificate states no value for %s\n", nv.key.c_str());
+        ok = false;
+        continue;
+      }
+      if (!(num((*stated)[0]) <= num(nv.enc.lo) && num(nv.enc.hi) <= num((*stated)[1]))) {
+        std::printf("  REJECTED: stated %s = [%s, %s] does not contain the re-proved [%s, %s]\n", nv.key.c_str(),
+                    (*stated)[0].c_str(), (*stated)[1].c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str());
         ok = false;
       }
     }

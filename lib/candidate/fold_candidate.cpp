@@ -5,6 +5,8 @@
 #include <cstdio>
 
 #include "candidate/branch_search.hpp"
+#include "model/berman.hpp"
+#include "model/operator.hpp"
 #include "proof/fold.hpp"
 
 namespace porecert::candidate {
@@ -95,9 +97,9 @@ V pad_extended(const V& x, int N_old, int N_new) {
 
 }  // namespace
 
-Eigen::VectorXd fold_truncated_residual(const V& x) {
+Eigen::VectorXd fold_truncated_residual(const V& x, const fs::NullSpace& ns) {
   const int N = fs::modes_of(x);
-  const auto v = fs::residual(x);
+  const auto v = fs::residual(x, ns);
   Eigen::VectorXd r = Eigen::VectorXd::Zero(fs::kScalars + 2 * N);
   for (int i = 0; i < 4; ++i) r(i) = v.rows[i];
   for (int k = 0; k < N; ++k) {
@@ -107,12 +109,12 @@ Eigen::VectorXd fold_truncated_residual(const V& x) {
   return r;
 }
 
-arith::MatD fold_truncated_jacobian(const V& x) {
+arith::MatD fold_truncated_jacobian(const V& x, const fs::NullSpace& ns) {
   const int N = fs::modes_of(x), n = fs::kScalars + 2 * N;
-  const auto bar = fs::lift_x(x);
+  const auto bar = fs::lift_x(x, ns);
   arith::MatD J = arith::MatD::Zero(n, n);
   for (int j = 0; j < n; ++j) {
-    const auto c = fs::column_j(bar, N, j);
+    const auto c = fs::column_j(bar, N, j, ns);
     for (int i = 0; i < 4; ++i) J(i, j) = c.rows[i];
     for (int k = 0; k < N; ++k) {
       if (k < static_cast<int>(c.e1.size())) J(fs::kScalars + k, j) = c.e1[k];
@@ -238,13 +240,13 @@ FoldCandidate fold_candidate(int modes) {
 }
 
 std::vector<arith::Mpfr> refine_fold_mpfr(const V& x_double, const Eigen::PartialPivLU<arith::MatD>& lu, int steps,
-                                          double* last_residual) {
+                                          double* last_residual, const fs::NullSpace& ns) {
   using arith::Mpfr;
   std::vector<Mpfr> x(x_double.begin(), x_double.end());
   const int N = fs::modes_of(x_double), n = static_cast<int>(x.size());
   double res = 0;
   for (int s = 0; s < steps; ++s) {
-    const auto v = fs::residual(x);
+    const auto v = fs::residual(x, ns);
     Eigen::VectorXd r = Eigen::VectorXd::Zero(n);
     for (int i = 0; i < 4; ++i) r(i) = v.rows[i].to_double();
     for (int k = 0; k < N; ++k) {
@@ -257,6 +259,101 @@ std::vector<arith::Mpfr> refine_fold_mpfr(const V& x_double, const Eigen::Partia
   }
   if (last_residual) *last_residual = res;
   return x;
+}
+
+}  // namespace porecert::candidate
+
+namespace porecert::candidate {
+
+namespace {
+// κ(R) of the even-perturbation problem about Berman's solution xf at R (layout of model::berman):
+// v''' + R(2 f'v' − f v'' − f''v) = κ, v(0) = 1, v'(0) = 0, v(1) = v'(1) = 0 (linear in (v''(0), κ, u_v)).
+// Returns the solution [v''(0), κ, u_v] with as many modes as xf.
+V even_perturbation(double R, const V& xf) {
+  const Model<double> mf = model::berman<double>(R);
+  const auto D = model::lift(model::constants_of(mf, xf), model::u_of(mf, xf));
+  Model<double> lm;
+  lm.id = "even-perturbation";
+  lm.fixed_at_0 = {1.0, 0.0, std::nullopt};
+  lm.lin = {{2 * R, 1, D[1]}, {-R, 2, D[0]}, {-R, 0, D[2]}};
+  lm.rows = {{{1.0, 0.0, 0.0}, 0.0, "v(1) = 0"}, {{0.0, 1.0, 0.0}, 0.0, "v'(1) = 0"}};
+  const NewtonReport r = newton(lm, V(2 + modes_of(mf, xf), 0.0), 4);
+  return r.x;
+}
+}  // namespace
+
+FoldCandidate symmetry_breaking_candidate(int modes) {
+  FoldCandidate out;
+  const fs::NullSpace& ns = fs::kEvenPerturbation;
+  auto make = [](double R) { return model::berman<double>(R); };
+  const int n0 = modes > 0 ? modes : 48;
+  // Type I at the two starting values of the secant (the reported R ≈ 6 from memory, bracketed).
+  double Ra = 5.5, Rb = 6.5;
+  NewtonReport ca = continuation(make, poiseuille(make(0.0), 24), 0.0, Ra, n0);
+  if (!ca.converged) {
+    out.log.push_back("type I continuation to R = 5.5 failed: " + ca.note);
+    return out;
+  }
+  V xa = with_modes(make(Ra), ca.x, n0);
+  xa = newton(make(Ra), xa).x;
+  auto kappa = [&](double R, V& xf) {
+    xf = newton(make(R), xf).x;
+    return even_perturbation(R, xf)[1];
+  };
+  V xb = xa;
+  double ka = kappa(Ra, xa), kb = kappa(Rb, xb);
+  out.log.push_back(fmt("even perturbation: kappa(%.3g) = %.6g, kappa(%.3g) = ", Ra, ka, Rb) + fmt("%.6g", kb));
+  if (!(ka * kb < 0)) {
+    out.log.push_back("kappa does not change sign on [5.5, 6.5]: no symmetry-breaking candidate there");
+    return out;
+  }
+  // Regula falsi (Illinois) on κ(R) = 0.
+  V xm = xa;
+  double Rm = Ra;
+  for (int it = 0; it < 60 && std::fabs(Rb - Ra) > 1e-13; ++it) {
+    Rm = Rb - kb * (Rb - Ra) / (kb - ka);
+    xm = xa;
+    const double km = kappa(Rm, xm);
+    if (km * kb < 0) {
+      Ra = Rb, ka = kb, xa = xb;
+    } else {
+      ka /= 2;
+    }
+    Rb = Rm, kb = km, xb = xm;
+    if (km == 0) break;
+  }
+  out.log.push_back(fmt("kappa(R) = 0 near R = %.15g", Rm));
+  const V v = even_perturbation(Rm, xm);
+  int N = n0;
+  V x(fs::kScalars + 2 * N, 0.0);
+  x[fs::kA] = Rm * xm[0];
+  x[fs::kK] = Rm * xm[1];
+  x[fs::kR] = Rm;
+  x[fs::kKappa] = v[0];  // v''(0)
+  for (int k = 0; k < N; ++k) {
+    x[fs::kScalars + k] = Rm * xm[2 + k];
+    x[fs::kScalars + N + k] = v[2 + k];
+  }
+  for (int round = 0; round < 6; ++round) {
+    double r = 0;
+    const bool ok = newton_generic(
+        x, [&](const V& z) { return fold_truncated_residual(z, ns); },
+        [&](const V& z) { return fold_truncated_jacobian(z, ns); }, 40, &r);
+    out.residual = r;
+    out.log.push_back(fmt("extended Newton (even null space), %g modes: residual %.3g", N, r) +
+                      (ok ? "" : " (not converged)"));
+    if (!ok) return out;
+    out.converged = true;
+    if (modes > 0 || N >= 160 || (decayed_block(x, fs::kScalars, N) && decayed_block(x, fs::kScalars + N, N))) break;
+    const int N2 = std::min(160, N * 3 / 2);
+    x = pad_extended(x, N, N2);
+    N = N2;
+  }
+  out.x = x;
+  out.modes = N;
+  out.log.push_back(fmt("candidate symmetry-breaking point: R = %.15g, f'(0) = %.12g, v''(0) = %.6g", x[fs::kR],
+                        x[fs::kA] / x[fs::kR], x[fs::kKappa]));
+  return out;
 }
 
 }  // namespace porecert::candidate

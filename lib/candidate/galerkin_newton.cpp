@@ -106,9 +106,13 @@ Vec poiseuille(const Model<double>& m, int n) {
 }
 
 Vec guess_from_shooting(const Model<double>& m, double a, double b, int n) {
-  // State y = (f, f', f''); f''' from (M1.2) with K fixed by the data at η = 0.
-  const std::array<double, 3> c0 = {m.fixed_at_0[0] ? *m.fixed_at_0[0] : 0.0, a,
-                                    m.fixed_at_0[2] ? *m.fixed_at_0[2] : 0.0};
+  // State y = (f, f', f''); f''' from (M1.2) with K fixed by the data at η = 0. `a` is the
+  // lowest free constant at 0 (f'(0) for Berman, f''(0) when f'(0) is fixed).
+  int first_free = -1;
+  for (int d = 2; d >= 0; --d)
+    if (!m.fixed_at_0[d]) first_free = d;
+  std::array<double, 3> c0{};
+  for (int d = 0; d < 3; ++d) c0[d] = m.fixed_at_0[d] ? *m.fixed_at_0[d] : (d == first_free ? a : 0.0);
   auto rest = [&](const std::array<double, 3>& y, double eta) {  // Σ lin + Σ quad at η
     std::array<double, 4> D = {y[0], y[1], y[2], 0.0};
     double s = 0;
@@ -150,7 +154,7 @@ Vec guess_from_shooting(const Model<double>& m, double a, double b, int n) {
   const auto u = cheb::coeffs_from_values(vals);
   Vec x(m.n_scalars() + n, 0.0);
   for (int d = 0; d < 3; ++d)
-    if (m.free_index(d) >= 0) x[m.free_index(d)] = d == 1 ? a : 0.0;
+    if (m.free_index(d) >= 0) x[m.free_index(d)] = c0[d];
   x[m.k_index()] = K;
   for (int k = 0; k < n; ++k) x[m.n_scalars() + k] = u[k];
   return x;

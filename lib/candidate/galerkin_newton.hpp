@@ -39,7 +39,8 @@ bool decayed(const Model<double>& m, const Vec& x, double rel = 1e-15);
 // Newton from a guess, raising N (×1.5) until the coefficients decay; n0 initial modes.
 NewtonReport solve_with_decay(const Model<double>& m, Vec x0, int n0, int n_max);
 
-// Initial guess from shooting data f'(0) = a, f'''(0) = b (RK4 from η = 0, then interpolation).
+// Initial guess from shooting data a = the lowest free constant at 0 (f'(0) for Berman),
+// b = f'''(0) (RK4 from η = 0, then interpolation).
 Vec guess_from_shooting(const Model<double>& m, double a, double b, int n);
 
 // Continuation in R from a start solution at R_start (type I: the R = 0 profile) to R_target.

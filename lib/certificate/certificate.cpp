@@ -5,6 +5,8 @@
 #include <fstream>
 #include <sstream>
 
+#include "model/case_file.hpp"
+
 namespace porecert::certificate {
 
 using nlohmann::json;
@@ -63,13 +65,24 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
   j["format_version"] = kFormatVersion;
   j["status"] = o.certified ? "certified" : "not certified";
   j["R"] = json::array({p.R_lo, p.R_hi});
-  j["problem"] = {{"model", "berman-half-channel"},
-                  {"equation", "f'''' + R (f' f'' - f f''') = 0 on [0,1]; integrated: f''' + R (f'^2 - f f'') = K"},
-                  {"boundary_conditions", json::array({"f(0) = 0", "f''(0) = 0", "f(1) = 1", "f'(1) = 0"})},
-                  {"parameters", {{"R", json::array({p.R_lo, p.R_hi})}}},
+  const model::ModelSpec& spec = o.model;
+  const auto m0 = model::build_model<double>(spec, 0.0);  // for the texts only
+  json params = {{"R", json::array({p.R_lo, p.R_hi})}};
+  json mparams = json::object();
+  for (const auto& [k, v] : spec.params) {
+    params[k] = v;
+    mparams[k] = v;
+  }
+  j["problem"] = {{"model", m0.id},
+                  {"model_name", spec.name},
+                  {"model_parameters", mparams},
+                  {"equation", m0.equation_text},
+                  {"boundary_conditions", model::boundary_conditions(spec)},
+                  {"parameters", params},
                   {"R_meaning",
                    "wall Reynolds number V h / nu; R > 0 suction, R < 0 injection; the certificate holds for every R "
                    "in the interval"}};
+  if (!spec.is_berman()) j["problem"]["documentation"] = "docs/models.md";
   if (!p.scenario.empty()) j["scenario"] = p.scenario;
   if (!p.branch.empty()) j["branch_requested"] = p.branch;
   if (o.certified && !o.structure.label.empty()) {
@@ -89,10 +102,12 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
                        "'unsure' = neither could be certified"}};
   }
   j["method"] = "newton-kantorovich";
-  j["space"] = {{"description",
-                 "x = (f'(0), K, u) with u = f''' as a Chebyshev series on [0,1]; norm |f'(0)| + |K| + sum_k |u_k| "
-                 "(l1 of Chebyshev coefficients, weight 1 on every component)"},
-                {"weights", {{"f'(0)", 1}, {"K", 1}, {"u_k", "1 (nu = 1)"}}}};
+  const std::string c0 = model::free_constant_text(spec);
+  const std::string fn = spec.name == "full-channel" ? "g" : "f";
+  j["space"] = {
+      {"description", "x = (" + c0 + ", K, u) with u = " + fn + "''' as a Chebyshev series on [0,1]; norm |" + c0 +
+                          "| + |K| + sum_k |u_k| (l1 of Chebyshev coefficients, weight 1 on every component)"},
+      {"weights", {{c0, 1}, {"K", 1}, {"u_k", "1 (nu = 1)"}}}};
   j["existence_radius"] = up_str(o.existence_radius);
   j["uniqueness_radius"] = down_str(o.uniqueness_radius);
   j["uniqueness"] = o.certified
@@ -103,7 +118,15 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
                        {"sup|f' - fbar'|", up_str(o.c3_error[1])},
                        {"sup|f'' - fbar''|", up_str(o.c3_error[2])},
                        {"sup|f''' - fbar'''|", up_str(o.c3_error[3])}};
-  if (o.certified) {
+  if (o.certified && !o.values.empty()) {
+    j["values"] = json::object();
+    json meaning = json::object();
+    for (const auto& v : o.values) {
+      j["values"][v.key] = pair(v.enc);
+      meaning[v.key] = v.meaning;
+    }
+    j["value_meanings"] = meaning;
+  } else if (o.certified) {
     j["values"] = {{kValueKeys[0], pair(o.fp0)},
                    {kValueKeys[1], pair(o.fppp0)},
                    {kValueKeys[2], pair(o.fpp1)},
@@ -118,11 +141,14 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
                  {"Z2", up_str(o.Z2)},
                  {"norm_A", up_str(o.A_norm)},
                  {"radii_polynomial", "p(r) = Z2 r^2 - (1 - max(Z0, Z1)) r + Y0 < 0 at r = existence_radius"}};
-  j["candidate"] = {{"modes", o.modes},
-                    {"arithmetic", o.precision_bits <= 53 ? "double intervals" : "MPFR intervals"},
-                    {"precision_bits", o.precision_bits},
-                    {"layout", "[f'(0), K, u_0, ..., u_{N-1}], u = f''' = sum u_k T_k(2 eta - 1)"},
-                    {"coefficients_hex", o.candidate_hex}};
+  j["candidate"] = {
+      {"modes", o.modes},
+      {"arithmetic", o.precision_bits <= 53 ? "double intervals" : "MPFR intervals"},
+      {"precision_bits", o.precision_bits},
+      {"layout", spec.name == "full-channel"
+                     ? "[g''(0), K_x, u_0, ..., u_{N-1}], u = g''' = sum u_k T_k(2 x - 1), x = (eta + 1)/2"
+                     : "[f'(0), K, u_0, ..., u_{N-1}], u = f''' = sum u_k T_k(2 eta - 1)"},
+      {"coefficients_hex", o.candidate_hex}};
   if (o.reduced) reduced_into(j, *o.reduced);
   j["log"] = o.log;
   j["seconds"] = o.seconds;
@@ -164,9 +190,26 @@ Stored parse(const json& j) {
   s.problem.R_hi = R[1];
   const auto& prob = need(j, "problem", json::value_t::object, "the problem statement");
   const auto model = need(prob, "model", json::value_t::string, "model identifier").get<std::string>();
-  if (model != "berman-half-channel")
-    throw format_error("certificate: problem.model is \"" + model +
-                       "\"; this version re-checks \"berman-half-channel\"");
+  if (prob.contains("model_name")) {  // model specs (docs/models.md); older files are Berman's
+    const auto& name = need(prob, "model_name", json::value_t::string, "a model name of docs/models.md");
+    const auto& mp = need(prob, "model_parameters", json::value_t::object, "parameter name -> decimal string");
+    s.model.name = name.get<std::string>();
+    for (const auto& [k, v] : mp.items()) {
+      if (!v.is_string())
+        throw format_error("certificate: problem.model_parameters." + k + " has value " + v.dump().substr(0, 60) +
+                           " (must be a decimal string)");
+      s.model.params.emplace_back(k, v.get<std::string>());
+    }
+    try {
+      s.model = model::checked(s.model);
+    } catch (const model::input_error& e) {
+      throw format_error(std::string("certificate: problem: ") + e.what());
+    }
+  }
+  const model::Model<double> m0 = model::build_model<double>(s.model, 0.0);
+  if (model != m0.id)
+    throw format_error("certificate: problem.model is \"" + model + "\" but model_name/model_parameters give \"" +
+                       m0.id + "\"");
   if (j.contains("branch") && j["branch"].is_string()) s.problem.branch = j["branch"].get<std::string>();
   const auto& cand = need(j, "candidate", json::value_t::object, "the candidate, exactly");
   s.precision_bits = need(cand, "precision_bits", json::value_t::number_integer, "an integer >= 53").get<int>();
@@ -200,7 +243,11 @@ Stored parse(const json& j) {
     throw format_error("certificate: existence_radius is \"" + er + "\", must be a decimal number");
   }
   const auto& vals = need(j, "values", json::value_t::object, "the value enclosures");
+  for (const auto& [k, v] : vals.items()) s.named_values.emplace_back(k, str_pair(v, "values." + k));
   if (s.status == "certified")
+    for (const auto& key : m0.values)
+      if (!vals.contains(key.key)) throw format_error("certificate: values.\"" + key.key + "\" is missing");
+  if (s.status == "certified" && s.model.half_channel())
     for (int i = 0; i < 4; ++i) {
       if (!vals.contains(kValueKeys[i]))
         throw format_error(std::string("certificate: values.\"") + kValueKeys[i] + "\" is missing");

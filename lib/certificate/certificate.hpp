@@ -31,10 +31,12 @@ struct Stored {
   int precision_bits = 53;
   std::vector<std::string> candidate_hex;
   double existence_radius = 0;
-  std::array<std::array<std::string, 2>, 4> values;  // f'(0), f'''(0), f''(1), K
-  std::string method = "newton-kantorovich";          // or "reduced-ivp"
-  int eps = 1, nth = 1;                                // reduced-ivp: branch data
-  std::array<std::string, 4> reduced_s;               // reduced-ivp: s_lo, s_hi, S_lo, S_hi
+  std::string method = "newton-kantorovich";         // or "reduced-ivp"
+  int eps = 1, nth = 1;                              // reduced-ivp: branch data
+  std::array<std::string, 4> reduced_s;              // reduced-ivp: s_lo, s_hi, S_lo, S_hi
+  std::array<std::array<std::string, 2>, 4> values;  // f'(0), f'''(0), f''(1), K (half-channel models)
+  model::ModelSpec model;                            // from problem.model_name / model_parameters
+  std::vector<std::pair<std::string, std::array<std::string, 2>>> named_values;  // every `values` entry
 };
 Stored parse(const nlohmann::json& j);
 nlohmann::json read_file(const std::string& path);  // throws format_error on unreadable / invalid JSON

@@ -20,6 +20,10 @@ Model<S> berman(const S& R) {
   m.rows.push_back({{S(1), S(0), S(0)}, S(1), "f(1) = 1"});
   m.rows.push_back({{S(0), S(1), S(0)}, S(0), "f'(1) = 0"});
   m.params.push_back({"R", R});
+  m.values = {{"f'(0)", 1, 0.0, 1.0, "centre-plane axial speed ratio"},
+              {"f'''(0)", 3, 0.0, 1.0, "third derivative on the centre plane"},
+              {"f''(1)", 2, 1.0, 1.0, "wall shear"},
+              {"K", -1, 0.0, 1.0, "axial pressure constant"}};
   return m;
 }
 

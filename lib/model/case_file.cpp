@@ -57,8 +57,23 @@ CaseSettings read_case_file(const std::string& path) {
   CaseSettings c;
   for (auto&& [k, v] : t) {
     const std::string key(k.str());
-    if (key != "case" && key != "flow" && key != "certify")
-      throw input_error("case file '" + path + "': unknown table [" + key + "] (allowed: [case], [flow], [certify])");
+    if (key != "case" && key != "flow" && key != "certify" && key != "model")
+      throw input_error("case file '" + path + "': unknown table [" + key +
+                        "] (allowed: [case], [flow], [certify], [model])");
+  }
+  if (const toml::table* mt = t["model"].as_table()) {
+    for (auto&& [k, v] : *mt) {
+      const std::string key(k.str());
+      if (key == "name") {
+        if (!v.is_string()) throw input_error("model.name: must be a string, e.g. name = \"full-channel\"");
+        c.model_name = *v.value<std::string>();
+      } else if (key == "wall-ratio" || key == "expansion" || key == "hartmann" || key == "slip") {
+        c.model_params.emplace_back(key, number_text(v, "model." + key));
+      } else {
+        throw input_error("case file '" + path + "': unknown key model." + key +
+                          " (allowed: name, wall-ratio, expansion, hartmann, slip)");
+      }
+    }
   }
   if (auto s = t["case"]["title"].value<std::string>()) c.title = *s;
   if (auto s = t["case"]["description"].value<std::string>()) c.description = *s;

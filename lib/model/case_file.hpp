@@ -5,6 +5,7 @@
 #include <stdexcept>
 #include <string>
 #include <utility>
+#include <vector>
 
 namespace porecert::model {
 
@@ -20,6 +21,9 @@ struct CaseSettings {
   std::optional<std::pair<double, double>> start;
   std::optional<int> modes, precision_bits;
   std::optional<std::string> certificate;  // output path (relative to the working directory)
+  // [model] table (docs/models.md): name and parameters as decimal strings.
+  std::optional<std::string> model_name;
+  std::vector<std::pair<std::string, std::string>> model_params;
 };
 
 // Parses a case file; throws input_error naming the field.

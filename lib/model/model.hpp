@@ -43,6 +43,16 @@ struct Parameter {
   S value;
 };
 
+// A reported value of the solution (docs/models.md): scale · D^d f(at), or scale · K when d = −1.
+// `at` and `scale` are exact binary numbers (0, 1/2, 1; powers of two), so no rounding enters.
+struct ValueKey {
+  std::string key;      // e.g. "f''(1)"; the certificate's `values` key
+  int d = 0;            // derivative order 0..3, or −1 for K
+  double at = 0;        // point in the model variable on [0,1]
+  double scale = 1;     // the physical value is scale · (model value)
+  std::string meaning;  // in words
+};
+
 template <class S>
 struct Model {
   std::string id;                              // stable identifier used in certificates, e.g. "berman-half-channel"
@@ -52,6 +62,7 @@ struct Model {
   std::vector<QuadTerm<S>> quad;
   std::vector<BoundaryRow<S>> rows;
   std::vector<Parameter<S>> params;
+  std::vector<ValueKey> values;  // reported values (empty: none beyond the proof's own)
 
   // Unknown layout x = [free f^{(d)}(0) in increasing d..., K, u_0, u_1, ...].
   int n_free() const {
@@ -94,6 +105,7 @@ Model<T> convert(const Model<S>& m, Fn fn) {
   for (const auto& t : m.quad) r.quad.push_back({fn(t.coef), t.d1, t.d2});
   for (const auto& b : m.rows) r.rows.push_back({{fn(b.coef[0]), fn(b.coef[1]), fn(b.coef[2])}, fn(b.value), b.text});
   for (const auto& p : m.params) r.params.push_back({p.name, fn(p.value)});
+  r.values = m.values;
   return r;
 }
 

@@ -1,6 +1,7 @@
 #include "proof/branches.hpp"
 
 #include "candidate/branch_search.hpp"
+#include "candidate/model_search.hpp"
 
 namespace porecert::proof {
 
@@ -10,6 +11,9 @@ arith::Tri distinct(const CertifyOutcome& a, const CertifyOutcome& b) {
   const arith::Id* pb[4] = {&b.fp0_id, &b.K_id, &b.fpp1_id, &b.fppp0_id};
   for (int i = 0; i < 4; ++i)
     if (arith::tri_disjoint(*pa[i], *pb[i]) == arith::Tri::yes) return arith::Tri::yes;
+  for (const auto& va : a.values)  // the model's own value keys (docs/models.md)
+    for (const auto& vb : b.values)
+      if (va.key == vb.key && arith::tri_disjoint(va.id, vb.id) == arith::Tri::yes) return arith::Tri::yes;
   return arith::Tri::unsure;
 }
 
@@ -18,7 +22,7 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
   const arith::Id R =
       boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
   const double Rm = arith::mid_double(R);
-  if (R.lower() >= kReducedFromR) {
+  if (R.lower() >= kReducedFromR && req.model.is_berman()) {
     // Strong suction: types I and II by the reduced method (docs/method.md §S), one on each side of
     // s = 0; the Chebyshev search only below kSearchUpToR (its proofs stop closing above).
     for (int sign_s : {-1, 1}) {
@@ -43,7 +47,8 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
       out.region += "; type III (f'(0) < 0) not searched above R = " + std::to_string(static_cast<int>(kSearchUpToR));
     }
   } else {
-    const auto search = candidate::find_branches(Rm, req.max_modes);
+    const auto search = req.model.is_berman() ? candidate::find_branches(Rm, req.max_modes)
+                                              : candidate::find_model_solutions(req.model, Rm, req.max_modes);
     out.region = search.region;
     out.log = search.log;
     for (const auto& f : search.found) {

@@ -7,6 +7,7 @@
 #include "candidate/galerkin_newton.hpp"
 #include "candidate/reduced_shooting.hpp"
 #include "model/berman.hpp"
+#include "model/model_spec.hpp"
 #include "model/operator.hpp"
 #include "proof/branches.hpp"
 #include "proof/newton_kantorovich.hpp"
@@ -50,10 +51,39 @@ void take(CertifyOutcome& out, const NKResult<I>& r) {
   }
 }
 
+// The model's reported values (model::ValueKey): scale · (D^d f̄(at) ± c3_error[d]), or
+// scale · (K̄ ± r) for d = −1; a free constant at 0 uses its own component ± r (tighter).
+template <arith::Interval I>
+void add_values(CertifyOutcome& out, const model::Model<I>& m, const std::vector<I>& x, const NKResult<I>& r) {
+  out.model_id = m.id;
+  out.values.clear();
+  if (!r.certified) return;
+  const auto D = model::lift(model::constants_of(m, x), model::u_of(m, x));
+  const I ball(-r.existence_radius, r.existence_radius);
+  for (const auto& k : m.values) {
+    I v;
+    if (k.d < 0) {
+      v = x[m.k_index()] + ball;
+    } else if (k.at == 0 && k.d < 3 && m.fixed_at_0[k.d]) {
+      v = *m.fixed_at_0[k.d];
+    } else if (k.at == 0 && k.d < 3) {
+      v = x[m.free_index(k.d)] + ball;
+    } else {
+      const I at = I(k.at);
+      const I p = k.at == 1 ? cheb::value_at_1(D[k.d]) : k.at == 0 ? cheb::value_at_0(D[k.d]) : cheb::eval(D[k.d], at);
+      v = p + I(-r.c3_error[k.d], r.c3_error[k.d]);
+    }
+    v = v * I(k.scale);
+    out.values.push_back({k.key, k.meaning, enclose(v), arith::to_id(v)});
+  }
+}
+
 // Sign structure of the certified solution from the candidate's outward double hull.
 template <arith::Interval I>
 void add_structure(CertifyOutcome& out, const model::Model<I>& m, const std::vector<I>& x) {
   if (!out.certified) return;
+  // The labels (docs/branches.md) are about half-channel profiles with f(0) = f''(0) = 0.
+  if (!m.fixed_at_0[0] || !m.fixed_at_0[2]) return;
   const model::Model<Id> md = model::convert<Id>(m, [](const I& v) { return arith::to_id(v); });
   std::vector<Id> xd;
   for (const I& v : x) xd.push_back(arith::to_id(v));
@@ -74,13 +104,16 @@ std::string summary(const NKBounds& b) {
 }
 
 // Proof in double intervals about a double candidate.
-CertifyOutcome prove_double(const std::string& lo, const std::string& hi, const candidate::Vec& x) {
+CertifyOutcome prove_double(const model::ModelSpec& spec, const std::string& lo, const std::string& hi,
+                            const candidate::Vec& x) {
   CertifyOutcome out;
   const Id R = read_R<Id>(lo, hi);
   std::vector<Id> xb(x.begin(), x.end());
-  const auto mdl = model::berman(R);
+  const auto mdl = model::build_model<Id>(spec, R);
   const auto r = nk_verify(mdl, xb);
   take(out, r);
+  out.model = spec;
+  add_values(out, mdl, xb, r);
   add_structure(out, mdl, xb);
   out.precision_bits = 53;
   out.log.push_back("double, " + std::to_string(r.modes) + " modes: " + summary(r.bounds) +
@@ -90,15 +123,18 @@ CertifyOutcome prove_double(const std::string& lo, const std::string& hi, const 
 }
 
 // Proof in MPFR intervals about an MPFR candidate.
-CertifyOutcome prove_mpfr(const std::string& lo, const std::string& hi, const std::vector<Mpfr>& x, int bits) {
+CertifyOutcome prove_mpfr(const model::ModelSpec& spec, const std::string& lo, const std::string& hi,
+                          const std::vector<Mpfr>& x, int bits) {
   arith::PrecisionScope scope(bits);
   CertifyOutcome out;
   const Im R = read_R<Im>(lo, hi);
   std::vector<Im> xb;
   for (const Mpfr& v : x) xb.emplace_back(v, v);
-  const auto mdl = model::berman(R);
+  const auto mdl = model::build_model<Im>(spec, R);
   const auto r = nk_verify(mdl, xb);
   take(out, r);
+  out.model = spec;
+  add_values(out, mdl, xb, r);
   add_structure(out, mdl, xb);
   out.precision_bits = bits;
   out.log.push_back("MPFR " + std::to_string(bits) + " bits, " + std::to_string(r.modes) +
@@ -109,13 +145,28 @@ CertifyOutcome prove_mpfr(const std::string& lo, const std::string& hi, const st
 
 // True when some value enclosure is relatively wider than rel (values at 0 are skipped).
 bool wider_than(const CertifyOutcome& o, double rel) {
-  for (const Enclosure* e : {&o.fp0, &o.fppp0, &o.fpp1, &o.K}) {
+  std::vector<const Enclosure*> all = {&o.fp0, &o.fppp0, &o.fpp1, &o.K};
+  for (const auto& v : o.values) all.push_back(&v.enc);
+  for (const Enclosure* e : all) {
     const double mid = 0.5 * (e->lo_d + e->hi_d);
     if (mid != 0 && (e->hi_d - e->lo_d) > rel * std::fabs(mid)) return true;
   }
   return false;
 }
 
+// The solution at R = 0 in the model's layout: Berman's exact profile, or (any model) one Newton
+// solve of the then linear problem from zero (non-rigorous; a start for continuation).
+candidate::Vec start_at_zero(const model::ModelSpec& spec, int n, int n_max) {
+  const auto m0 = model::build_model<double>(spec, 0.0);
+  if (spec.is_berman()) return candidate::poiseuille(m0, n);
+  const auto r = candidate::solve_with_decay(m0, candidate::Vec(m0.n_scalars() + n, 0.0), n, n_max);
+  return r.x;
+}
+
+}  // namespace
+
+namespace {
+const char* kReducedKeys[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};  // order of ReducedResult::value
 }  // namespace
 
 CertifyOutcome outcome_of(const ReducedResult& r) {
@@ -137,6 +188,12 @@ CertifyOutcome outcome_of(const ReducedResult& r) {
       *d[k] = r.value[k];
     }
     out.structure = r.structure;
+    // The model's reported values (docs/models.md), in its key order: for Berman the same four.
+    const auto m = model::berman<double>(0.0);
+    out.model_id = m.id;
+    for (const auto& k : m.values)
+      for (int i = 0; i < 4; ++i)
+        if (k.key == kReducedKeys[i]) out.values.push_back({k.key, k.meaning, *e[i], *d[i]});
   }
   return out;
 }
@@ -175,7 +232,13 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
   // Strong suction: the reduced method first (types I and II are exponentially close there, which
   // costs the Newton-Kantorovich proof modes and precision; docs/method.md §S).
   std::vector<std::string> pre;
-  if (req.method == "reduced" || (req.method == "auto" && Rint.lower() >= 40 && !req.start && req.branch == "I")) {
+  if (req.method == "reduced" && !req.model.is_berman()) {
+    CertifyOutcome out;
+    out.failure = "the reduced method rests on the symmetries of Berman's half-channel equation (docs/method.md §S)";
+    return out;
+  }
+  if (req.model.is_berman() &&
+      (req.method == "reduced" || (req.method == "auto" && Rint.lower() >= 40 && !req.start && req.branch == "I"))) {
     const auto pick = reduced_pick(req, Rmid);
     if (!pick) {
       CertifyOutcome out;
@@ -187,7 +250,8 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     pre = r.log;
     pre.push_back("reduced method: " + r.failure + "; trying Newton-Kantorovich");
   }
-  auto make = [](double R) { return model::berman<double>(R); };
+  const model::ModelSpec spec = req.model;
+  auto make = [spec](double R) { return model::build_model<double>(spec, R); };
   const model::Model<double> md = make(Rmid);
   std::vector<std::string> log;
 
@@ -200,18 +264,19 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     log.push_back("candidate from --start " + std::to_string(req.start->first) + "," +
                   std::to_string(req.start->second) + ": " + (cand.converged ? "converged" : cand.note));
   } else {
-    cand = candidate::continuation(make, candidate::poiseuille(make(0.0), 24), 0.0, Rmid, req.max_modes, nullptr);
+    cand = candidate::continuation(make, start_at_zero(spec, 24, req.max_modes), 0.0, Rmid, req.max_modes, nullptr);
     log.push_back("candidate by continuation from R = 0 (type I): " +
                   std::string(cand.converged ? "converged" : cand.note));
   }
   if (!cand.converged) {
     CertifyOutcome out;
+    out.model = spec;
     out.failure = "no candidate: " + cand.note;
     out.log = log;
     return out;
   }
   CertifyOutcome out = certify_from(req, cand.x);
-  if (!req.start && req.branch == "I" && out.certified && out.structure.label != "I") {
+  if (!req.start && req.branch == "I" && out.certified && spec.is_berman() && out.structure.label != "I") {
     // Continuation can jump to a nearby branch where branches crowd (types I and II for large
     // suction): the certified structure says so; then look for type I with the branch search.
     log.push_back("continuation ended on a solution of certified type " + out.structure.label +
@@ -233,14 +298,14 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
   const auto t0 = std::chrono::steady_clock::now();
   const Id Rint = read_R<Id>(req.R_lo, req.R_hi);
   const double Rmid = arith::mid_double(Rint);
-  auto make = [](double R) { return model::berman<double>(R); };
-  const model::Model<double> md = make(Rmid);
+  const model::ModelSpec spec = req.model;
+  const model::Model<double> md = model::build_model<double>(spec, Rmid);
   std::vector<std::string> log;
   CertifyOutcome out;
   // 2. Modes: coefficient decay already reached; add modes until the tail estimate is small.
   int N = std::max(candidate::modes_of(md, x_candidate), req.modes);
   {
-    const model::Model<Id> mi = model::berman(Rint);
+    const model::Model<Id> mi = model::build_model<Id>(spec, Rint);
     auto tail_at = [&](int n) {
       std::vector<Id> xi;
       for (double v : candidate::with_modes(md, x_candidate, n)) xi.push_back(Id(v));
@@ -259,15 +324,15 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
   int bits = req.precision_bits;
   for (int attempt = 0; attempt < 14; ++attempt) {
     if (bits == 0 || bits == 53) {
-      out = prove_double(req.R_lo, req.R_hi, x);
+      out = prove_double(spec, req.R_lo, req.R_hi, x);
     } else {
       arith::PrecisionScope scope(bits);
       const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(md, x));
-      const model::Model<Mpfr> mm = model::berman<Mpfr>(Mpfr(Rmid));
+      const model::Model<Mpfr> mm = model::build_model<Mpfr>(spec, Mpfr(Rmid));
       double last = 0;
       const int steps = 2 + bits / 40;
       const auto xm = candidate::refine_mpfr(mm, x, lu, steps, &last);
-      out = prove_mpfr(req.R_lo, req.R_hi, xm, bits);
+      out = prove_mpfr(spec, req.R_lo, req.R_hi, xm, bits);
     }
     log.insert(log.end(), out.log.begin(), out.log.end());
     if (out.certified) break;
@@ -291,8 +356,8 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
     arith::PrecisionScope scope(b2);
     const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(md, x));
     double last = 0;
-    const auto xm = candidate::refine_mpfr(model::berman<Mpfr>(Mpfr(Rmid)), x, lu, 5, &last);
-    CertifyOutcome tight = prove_mpfr(req.R_lo, req.R_hi, xm, b2);
+    const auto xm = candidate::refine_mpfr(model::build_model<Mpfr>(spec, Mpfr(Rmid)), x, lu, 5, &last);
+    CertifyOutcome tight = prove_mpfr(spec, req.R_lo, req.R_hi, xm, b2);
     log.push_back("relative width above " + std::to_string(req.target_rel_width) + " in double: " + tight.log.back());
     if (tight.certified) out = std::move(tight);
   }
@@ -303,6 +368,11 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
 
 CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
                               const std::vector<std::string>& candidate_hex, int precision_bits) {
+  return recheck_model(model::ModelSpec{}, R_lo, R_hi, candidate_hex, precision_bits);
+}
+
+CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_lo, const std::string& R_hi,
+                             const std::vector<std::string>& candidate_hex, int precision_bits) {
   const auto t0 = std::chrono::steady_clock::now();
   CertifyOutcome out;
   if (precision_bits <= 53) {
@@ -312,7 +382,7 @@ CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
       if (v.lower() != v.upper()) throw std::invalid_argument("candidate coefficient '" + h + "' is not a double");
       x.push_back(v.lower());
     }
-    out = prove_double(R_lo, R_hi, x);
+    out = prove_double(spec, R_lo, R_hi, x);
   } else {
     arith::PrecisionScope scope(precision_bits);
     std::vector<Mpfr> x;
@@ -323,7 +393,7 @@ CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
                                     std::to_string(precision_bits) + " bits");
       x.push_back(v.lower());
     }
-    out = prove_mpfr(R_lo, R_hi, x, precision_bits);
+    out = prove_mpfr(spec, R_lo, R_hi, x, precision_bits);
   }
   out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   return out;

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "arith/interval.hpp"
+#include "model/model_spec.hpp"
 #include "proof/reduced_ivp.hpp"
 #include "proof/structure.hpp"
 
@@ -28,11 +29,19 @@ struct CertifyRequest {
   // "auto" (Newton–Kantorovich; the reduced method for strong suction, docs/method.md §S),
   // "newton" or "reduced".
   std::string method = "auto";
+  model::ModelSpec model;  // default: Berman's half-channel problem (docs/models.md)
 };
 
 struct Enclosure {
   std::string lo, hi;  // outward decimal strings
   double lo_d = 0, hi_d = 0;
+};
+
+// One reported value of the model (model::ValueKey), enclosed.
+struct NamedValue {
+  std::string key, meaning;
+  Enclosure enc;
+  arith::Id id;
 };
 
 struct CertifyOutcome {
@@ -52,9 +61,16 @@ struct CertifyOutcome {
   arith::Id fp0_id, K_id, fpp1_id, fppp0_id;  // the value enclosures as double intervals
   std::string method = "newton-kantorovich";  // or "reduced-ivp" (then `reduced` holds the proof data)
   std::optional<ReducedResult> reduced;
+  // The model proved and its reported values (docs/models.md). For Berman and the half-channel
+  // variants `values` repeats fp0, fppp0, fpp1, K; for the full channel fp0 .. K above are the
+  // raw [0,1]-variable quantities and `values` holds the η-scaled ones.
+  model::ModelSpec model;
+  std::string model_id;
+  std::vector<NamedValue> values;
 };
 
-// Runs the whole certification for Berman's half-channel problem.
+// Runs the whole certification for the model req.model (default: Berman's half-channel problem;
+// the name is kept for the callers that predate model specs).
 CertifyOutcome certify_berman(const CertifyRequest& req);
 // The proof part only, about a given (non-rigorous) Galerkin candidate in the model's layout.
 CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>& x_candidate);
@@ -68,5 +84,8 @@ CertifyOutcome outcome_of(const ReducedResult& r);
 // Re-runs the proof on a stored candidate (hex strings) at the stored precision: no solver.
 CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
                               const std::vector<std::string>& candidate_hex, int precision_bits);
+// The same for any model spec (recheck_berman is this with the default spec).
+CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_lo, const std::string& R_hi,
+                             const std::vector<std::string>& candidate_hex, int precision_bits);
 
 }  // namespace porecert::proof

@@ -39,8 +39,11 @@ struct Piece {
 std::string fmt(double v) { return short_number(v); }
 
 // λ_d ≥ sup over unit vectors of one function part (g: a or a u_g mode; v: a u_v mode) of ‖D^d‖, d = 0..2.
-std::array<double, 3> lambdas() {
+std::array<double, 3> lambdas(const fs::NullSpace& ns) {
   std::array<double, 3> lam = {1.0, 1.0, 0.0};  // a-direction: D⁰ = η (ℓ¹ norm 1), D¹ = 1, D² = 0
+  // v^{(d)}(0)-direction (free_d = d): D^e = η^{d−e}/(d−e)!, ℓ¹ norm ≤ 1 on [0,1] (ℓ¹ of η^j is 1).
+  if (ns.free_d >= 0)
+    for (int e = 0; e <= ns.free_d; ++e) lam[e] = std::max(lam[e], 1.0);
   const JBounds jb = j_tail_bounds(40);
   for (int d = 0; d < 3; ++d) {
     lam[d] = std::max(lam[d], up_add(jb.band[3 - d], jb.low[3 - d]));  // modes k ≥ 40, (M3.5)
@@ -57,7 +60,7 @@ std::array<double, 3> lambdas() {
 }  // namespace
 
 template <arith::Interval I>
-FoldResult<I> fold_verify(const std::vector<I>& xbar) {
+FoldResult<I> fold_verify(const std::vector<I>& xbar, const fs::NullSpace& nsp) {
   const int N = fs::modes_of(xbar);
   if (N < 8 || static_cast<int>(xbar.size()) != fs::kScalars + 2 * N)
     throw std::invalid_argument("fold candidate needs 4 scalars and two series of at least 8 modes");
@@ -70,7 +73,7 @@ FoldResult<I> fold_verify(const std::vector<I>& xbar) {
 
   std::vector<Id> xd;
   for (const I& v : xbar) xd.push_back(arith::to_id(v));
-  const fs::Lifted<Id> bar = fs::lift_x(xd);
+  const fs::Lifted<Id> bar = fs::lift_x(xd, nsp);
 
   // Puts a column (rows and both function blocks) into M(:, c); returns the ℓ¹ norm of what
   // falls at modes ≥ N, after removing the identity at mode `ident` of block `iblock`.
@@ -91,7 +94,7 @@ FoldResult<I> fold_verify(const std::vector<I>& xbar) {
   // ---- finite block DF(x̄) and its approximate inverse ----
   MidRad D{MatD::Zero(n, n), MatD::Zero(n, n)};
   Eigen::VectorXd spill = Eigen::VectorXd::Zero(n);
-  for (int j = 0; j < n; ++j) spill(j) = load(D, j, fs::column_j(bar, N, j), -1, -1);
+  for (int j = 0; j < n; ++j) spill(j) = load(D, j, fs::column_j(bar, N, j, nsp), -1, -1);
   const Eigen::PartialPivLU<MatD> lu(D.mid);
   const MatD A = lu.inverse();
   if (!A.allFinite()) {
@@ -119,7 +122,7 @@ FoldResult<I> fold_verify(const std::vector<I>& xbar) {
     for (int t = 0; t < 2; ++t) {
       MidRad E{MatD::Zero(n, nt), MatD::Zero(n, nt)};
       Eigen::VectorXd sp = Eigen::VectorXd::Zero(nt);
-      for (int k = N; k < Kx; ++k) sp(k - N) = load(E, k - N, fs::column(bar, -1, t, k), t, k);
+      for (int k = N; k < Kx; ++k) sp(k - N) = load(E, k - N, fs::column(bar, -1, t, k, nsp), t, k);
       const Eigen::VectorXd cn = arith::column_norms_up(arith::product(A, E));
       for (int c = 0; c < nt; ++c) z1 = std::max(z1, up_add(cn(c), sp(c)));
       // k ≥ Kx: boundary rows, tail norms, and the low part of J^m T_k seen by A.
@@ -156,14 +159,14 @@ FoldResult<I> fold_verify(const std::vector<I>& xbar) {
 
   // ---- Z2 = ‖A‖ (2 λ₁² + 2 λ₀ λ₂), docs/fold.md (F12) ----
   {
-    const auto lam = lambdas();
+    const auto lam = lambdas(nsp);
     const double c = up_add(up_mul(2.0, up_mul(lam[1], lam[1])), up_mul(2.0, up_mul(lam[0], lam[2])));
     res.bounds.Z2 = up_mul(res.bounds.A_norm, c);
   }
 
   // ---- Y0 = ‖A_N Π F(x̄)‖ + ‖(I − Π) F(x̄)‖ in the candidate's arithmetic ----
   {
-    const auto F = fs::residual(xbar);
+    const auto F = fs::residual(xbar, nsp);
     std::vector<I> top(n, I(0));
     for (int i = 0; i < 4; ++i) top[i] = F.rows[i];
     double bottom = 0;
@@ -193,7 +196,7 @@ FoldResult<I> fold_verify(const std::vector<I>& xbar) {
   const I ball(-r, r);
   res.R = xbar[fs::kR] + ball;
   res.kappa = xbar[fs::kKappa] + ball;
-  const fs::Lifted<I> Lt = fs::lift_x(xbar);
+  const fs::Lifted<I> Lt = fs::lift_x(xbar, nsp);
   res.fp0 = (xbar[fs::kA] + ball) / res.R;
   res.K = (xbar[fs::kK] + ball) / res.R;
   res.fpp1 = (cheb::value_at_1(Lt.G[2]) + ball) / res.R;
@@ -201,8 +204,8 @@ FoldResult<I> fold_verify(const std::vector<I>& xbar) {
   return res;
 }
 
-template FoldResult<Id> fold_verify<Id>(const std::vector<Id>&);
-template FoldResult<Im> fold_verify<Im>(const std::vector<Im>&);
+template FoldResult<Id> fold_verify<Id>(const std::vector<Id>&, const fs::NullSpace&);
+template FoldResult<Im> fold_verify<Im>(const std::vector<Im>&, const fs::NullSpace&);
 
 namespace {
 template <arith::Interval I>
@@ -227,10 +230,10 @@ void take(FoldOutcome& o, const FoldResult<I>& r) {
 }
 }  // namespace
 
-FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
-  const auto t0 = std::chrono::steady_clock::now();
+namespace {
+FoldOutcome certify_extended(const candidate::FoldCandidate& cand, const fs::NullSpace& ns, double target_width,
+                             int precision_bits, std::chrono::steady_clock::time_point t0) {
   FoldOutcome out;
-  const candidate::FoldCandidate cand = candidate::fold_candidate(modes);
   out.log = cand.log;
   auto finish = [&] {
     out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
@@ -242,7 +245,7 @@ FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
   }
   if (precision_bits == 0 || precision_bits == 53) {
     std::vector<Id> xi(cand.x.begin(), cand.x.end());
-    take(out, fold_verify<Id>(xi));
+    take(out, fold_verify<Id>(xi, ns));
     out.precision_bits = 53;
     out.candidate_hex.clear();
     for (double v : cand.x) out.candidate_hex.push_back(arith::hex_exact(v));
@@ -252,12 +255,12 @@ FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
   }
   const int bits = precision_bits > 53 ? precision_bits : 128;
   arith::PrecisionScope scope(bits);
-  const Eigen::PartialPivLU<MatD> lu(candidate::fold_truncated_jacobian(cand.x));
+  const Eigen::PartialPivLU<MatD> lu(candidate::fold_truncated_jacobian(cand.x, ns));
   double last = 0;
-  const auto xm = candidate::refine_fold_mpfr(cand.x, lu, 6, &last);
+  const auto xm = candidate::refine_fold_mpfr(cand.x, lu, 6, &last, ns);
   std::vector<Im> xi;
   for (const auto& v : xm) xi.push_back(Im(v));
-  take(out, fold_verify<Im>(xi));
+  take(out, fold_verify<Im>(xi, ns));
   out.precision_bits = bits;
   out.candidate_hex.clear();
   for (const auto& v : xm) out.candidate_hex.push_back(arith::hex_exact(v));
@@ -265,8 +268,20 @@ FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
                     "): " + (out.certified ? "certified, R* width " + fmt(arith::width_up(out.R)) : out.failure));
   return finish();
 }
+}  // namespace
 
-FoldOutcome recheck_fold(const std::vector<std::string>& hex, int precision_bits) {
+FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
+  const auto t0 = std::chrono::steady_clock::now();
+  return certify_extended(candidate::fold_candidate(modes), fs::kTurningPoint, target_width, precision_bits, t0);
+}
+
+FoldOutcome certify_symmetry_breaking(double target_width, int precision_bits, int modes) {
+  const auto t0 = std::chrono::steady_clock::now();
+  return certify_extended(candidate::symmetry_breaking_candidate(modes), fs::kEvenPerturbation, target_width,
+                          precision_bits, t0);
+}
+
+FoldOutcome recheck_fold(const std::vector<std::string>& hex, int precision_bits, const fs::NullSpace& ns) {
   const auto t0 = std::chrono::steady_clock::now();
   FoldOutcome out;
   if (hex.size() < static_cast<std::size_t>(fs::kScalars) + 16 || (hex.size() - fs::kScalars) % 2 != 0)
@@ -279,7 +294,7 @@ FoldOutcome recheck_fold(const std::vector<std::string>& hex, int precision_bits
       if (v.lower() != v.upper()) throw std::invalid_argument("fold candidate coefficient '" + h + "' is not a double");
       xi.push_back(v);
     }
-    take(out, fold_verify<Id>(xi));
+    take(out, fold_verify<Id>(xi, ns));
     out.precision_bits = 53;
   } else {
     arith::PrecisionScope scope(precision_bits);
@@ -289,7 +304,7 @@ FoldOutcome recheck_fold(const std::vector<std::string>& hex, int precision_bits
       if (v.lower() != v.upper()) throw std::invalid_argument("fold candidate coefficient '" + h + "' is not exact");
       xi.push_back(v);
     }
-    take(out, fold_verify<Im>(xi));
+    take(out, fold_verify<Im>(xi, ns));
     out.precision_bits = precision_bits;
   }
   out.candidate_hex = hex;
