@@ -57,7 +57,7 @@ Channel read_channel(const std::map<std::string, std::string>& fields, const std
     c.nu = c.mu / c.rho;
   }
   c.U0 = parse_quantity_as(F("mean_inlet_velocity"), need("mean_inlet_velocity"), kVelocity, "a velocity");
-  positive("mean_inlet_velocity", c.U0, false);
+  positive("mean_inlet_velocity", c.U0, true);  // 0: a closed end at x = 0 (Berman's own case)
   c.x = parse_quantity_as(F("axial_position"), need("axial_position"), kLength, "a length");
   positive("axial_position", c.x, true);
   if (!(mean_velocity_at_x(c).lower() > 0))

@@ -22,7 +22,7 @@ const std::vector<std::string>& channel_fields();
 
 // Reads and checks the fields (prefix names the table in messages, e.g. "channel"). Rules:
 // half_width > 0; wall_velocity any sign (> 0 suction, < 0 injection); exactly one of
-// kinematic_viscosity and dynamic_viscosity, > 0; density > 0; mean_inlet_velocity > 0;
+// kinematic_viscosity and dynamic_viscosity, > 0; density > 0; mean_inlet_velocity >= 0 (0: closed end);
 // axial_position >= 0 and upstream of the point where suction has drawn off all the flow
 // (U0 - V x / h > 0, (U3)). Throws input_error naming the field, the value and the rule.
 Channel read_channel(const std::map<std::string, std::string>& fields, const std::string& prefix = "channel");

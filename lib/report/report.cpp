@@ -184,6 +184,22 @@ DisplayUnit pick_unit(double maxabs, bool velocity) {
 
 const char* kColors[] = {"#1f6f8b", "#c8553d", "#6a4c93", "#3a7d44", "#b08900", "#555555"};
 
+// Names carry R only when the input mixes several R (a sweep); branches share one R.
+bool g_mixed_R = false;
+std::string solution_name(const Solution& s, std::size_t k, std::size_t n) {
+  std::string t = s.label.empty() ? "solution" : "type " + s.label;
+  if (n > 1) t = "[" + std::to_string(k + 1) + "] " + t;
+  if (n > 1 && g_mixed_R) t += ", R = " + R_text(s.st);
+  return t;
+}
+// One colour per branch label everywhere on the page; unlabelled solutions by index.
+std::string color_for(const Solution& s, std::size_t k) {
+  if (s.label == "I") return kColors[0];
+  if (s.label == "II") return kColors[1];
+  if (s.label == "III") return kColors[2];
+  return kColors[3 + k % 3];
+}
+
 std::vector<double> nice_ticks(double lo, double hi, int want = 5) {
   const double span = hi - lo;
   if (!(span > 0)) return {lo};
@@ -309,25 +325,18 @@ std::string branch_svg(const std::vector<Solution>& sols) {
     x1 = std::max(x1, cx + 4);
     y0 = std::min(y0, cy - 4);
     y1 = std::max(y1, cy + 4);
-    const std::string col = s.label == "I" ? kColors[0] : s.label == "II" ? kColors[1] : s.label == "III" ? kColors[2] : kColors[5];
+    const std::string col = color_for(s, k);
     o << "<rect class=\"box\" x=\"" << num(x0) << "\" y=\"" << num(y0) << "\" width=\"" << num(x1 - x0)
       << "\" height=\"" << num(y1 - y0) << "\" stroke=\"" << col << "\"><title>" << esc(s.label.empty() ? "unlabelled" : "type " + s.label)
       << ": R in " << esc(R_text(s.st)) << ", f''(1) in " << esc(ival_str(s.st.values[2])) << "</title></rect>";
     o << "<text class=\"boxlabel\" x=\"" << num(x1 + 4) << "\" y=\"" << num(cy + 4) << "\" fill=\"" << col << "\">"
       << esc(s.label.empty() ? "?" : s.label) << "</text>\n";
   }
-  o << "<text class=\"ptitle\" x=\"" << f.L << "\" y=\"20\">Certified solutions: f''(1) against R (boxes are the "
-       "certified enclosures, drawn at least 8 px)</text>\n</svg>\n";
+  o << "<text class=\"ptitle\" x=\"" << f.L << "\" y=\"20\">f''(1) against R: certified boxes (drawn at least 8 px)</text>\n</svg>\n";
   return o.str();
 }
 
 // ---- page sections ------------------------------------------------------------------------
-
-std::string solution_name(const Solution& s, std::size_t k, std::size_t n) {
-  std::string t = s.label.empty() ? "solution" : "type " + s.label;
-  if (n > 1) t = "[" + std::to_string(k + 1) + "] " + t + ", R = " + R_text(s.st);
-  return t;
-}
 
 std::string profiles_section(const std::vector<Solution>& sols) {
   // Dimensional plots only when there is exactly one certified solution with channel data.
@@ -354,7 +363,7 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   }
   for (std::size_t k = 0; k < cert.size(); ++k) {
     const Solution& s = *cert[k];
-    Band u{solution_name(s, k, cert.size()), kColors[k % 6], {}, {}, {}}, v = u;
+    Band u{solution_name(s, k, cert.size()), color_for(s, k), {}, {}, {}}, v = u;
     // Mirror to the whole channel: f' is even and f odd in eta (symmetric problem).
     for (int i = -kSamples; i <= kSamples; ++i) {
       const int a = std::abs(i);
@@ -524,7 +533,7 @@ header .sub{opacity:.85;font-size:14px}
 .chip.ok{background:#d8f0d9;color:#14501a}.chip.bad{background:#f8d7d4;color:#7a1410}
 main{max-width:1180px;margin:18px auto;padding:0 18px}
 section{background:var(--paper);border:1px solid var(--line);border-radius:8px;padding:14px 20px;margin:0 0 16px}
-h2{font-size:18px;margin:2px 0 10px;color:#12343b;border-bottom:2px solid var(--accent);display:inline-block}
+h2{font-size:18px;margin:2px 0 10px;color:#12343b;border-bottom:2px solid var(--accent);display:table}
 .plots{display:flex;flex-wrap:wrap;gap:12px}
 svg.plot{width:540px;max-width:100%;height:auto;background:#fff;border:1px solid var(--line);border-radius:6px}
 svg.plot.wide{width:700px}
@@ -594,6 +603,9 @@ std::vector<std::string> expected_ids(const ReportInput& in) {
 
 std::string render_html(const ReportInput& in, const std::string& source_name) {
   const auto sols = read_all(in);
+  g_mixed_R = false;
+  for (const auto& s : sols)
+    g_mixed_R = g_mixed_R || s.st.problem.R_lo != sols[0].st.problem.R_lo || s.st.problem.R_hi != sols[0].st.problem.R_hi;
   std::size_t ncert = 0;
   for (const auto& s : sols) ncert += s.certified;
   std::string title = "porecert report";
@@ -617,7 +629,7 @@ std::string render_html(const ReportInput& in, const std::string& source_name) {
   o << "<section id=\"summary\"><h2>Summary</h2><ul>";
   for (std::size_t k = 0; k < sols.size(); ++k) {
     const auto& s = sols[k];
-    o << "<li><b>" << esc(solution_name(s, k, sols.size())) << "</b>: R = " << esc(R_text(s.st)) << " — "
+    o << "<li><b>" << esc(solution_name(s, k, sols.size())) << "</b> at R = " << esc(R_text(s.st)) << ": "
       << (s.certified ? "certified" : "NOT certified");
     if (s.certified && s.j.contains("structure") && s.j["structure"].is_object())
       o << "; " << esc(jstr(s.j["structure"], "reason", ""));
