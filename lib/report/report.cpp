@@ -590,6 +590,16 @@ ReportInput load(const std::string& path) {
   return in;
 }
 
+Profile certified_profile(const json& cert) {
+  const Solution s = read_solution(cert, "");
+  if (!s.certified) throw format_error("certificate: status is \"" + s.st.status + "\" (rule: a profile needs a proof)");
+  Profile p;
+  for (int i = 0; i <= kSamples; ++i) p.eta.push_back(double(i) / kSamples);
+  p.f = s.f;
+  p.fp = s.fp;
+  return p;
+}
+
 std::vector<std::string> expected_ids(const ReportInput& in) {
   const auto sols = read_all(in);
   std::vector<std::string> ids{"summary", "values", "cautions"};

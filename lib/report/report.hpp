@@ -7,6 +7,8 @@
 #include <string>
 #include <vector>
 
+#include "arith/interval.hpp"
+
 namespace porecert::report {
 
 struct ReportInput {
@@ -23,6 +25,14 @@ ReportInput load(const std::string& path);
 // The HTML page. Throws certificate::format_error when a certified entry lacks what the page
 // needs (error_bounds, bounds, a readable candidate, dimensional inputs that do not match R).
 std::string render_html(const ReportInput& in, const std::string& source_name);
+
+// The profile enclosures the page draws, for one certified certificate: at eta_i = i/128 (exact),
+// f(eta_i) and f'(eta_i) enclose the true solution's values (docs/report.md (R1)-(R2)).
+struct Profile {
+  std::vector<double> eta;
+  std::vector<arith::Id> f, fp;
+};
+Profile certified_profile(const nlohmann::json& cert);
 
 // Ids of the elements the page always carries for this input (the Chromium test checks them).
 std::vector<std::string> expected_ids(const ReportInput& in);
