@@ -17,8 +17,8 @@ bool encloses(const Id& x, const char* d) {
   return x.lower() <= t.lower() && t.upper() <= x.upper();
 }
 std::map<std::string, std::string> base() {
-  return {{"half_width", "1 mm"},          {"wall_velocity", "0 m/s"},       {"kinematic_viscosity", "1e-6 m^2/s"},
-          {"density", "1000 kg/m^3"},      {"mean_inlet_velocity", "0.1 m/s"}, {"axial_position", "0 m"}};
+  return {{"half_width", "1 mm"},     {"wall_velocity", "0 m/s"},         {"kinematic_viscosity", "1e-6 m^2/s"},
+          {"density", "1000 kg/m^3"}, {"mean_inlet_velocity", "0.1 m/s"}, {"axial_position", "0 m"}};
 }
 const model::DimResult& get(const std::vector<model::DimResult>& r, const std::string& k) {
   for (const auto& x : r)
@@ -32,9 +32,9 @@ TEST_CASE("R = 0: plane Poiseuille wall shear, pressure gradient and centre-line
   const auto c = model::read_channel(base());
   CHECK(encloses(model::reynolds(c), "0"));
   const auto r = model::dimensional_results(c, Id(1.5), Id(-3), Id(-3));
-  CHECK(encloses(get(r, "centreline_velocity").value, "0.15"));   // 3U/2
-  CHECK(encloses(get(r, "wall_shear_stress").value, "0.3"));      // 3 mu U / h = 3e-3 * 0.1 / 1e-3
-  CHECK(encloses(get(r, "pressure_gradient").value, "-300"));     // -3 mu U / h^2
+  CHECK(encloses(get(r, "centreline_velocity").value, "0.15"));  // 3U/2
+  CHECK(encloses(get(r, "wall_shear_stress").value, "0.3"));     // 3 mu U / h = 3e-3 * 0.1 / 1e-3
+  CHECK(encloses(get(r, "pressure_gradient").value, "-300"));    // -3 mu U / h^2
   CHECK(arith::width_up(get(r, "pressure_gradient").value) < 1e-10);
 }
 

@@ -127,8 +127,9 @@ TEST_CASE("dimensional inputs that do not match the certified R are refused") {
 
 TEST_CASE("case files: units are required, unknown units and doubly given R are refused") {
   std::system(("mkdir -p " + tmp).c_str());
-  const std::string head = "[channel]\nhalf_width = \"1 mm\"\nkinematic_viscosity = \"1e-6 m^2/s\"\n"
-                           "density = \"998 kg/m^3\"\nmean_inlet_velocity = \"0.1 m/s\"\naxial_position = \"1 mm\"\n";
+  const std::string head =
+      "[channel]\nhalf_width = \"1 mm\"\nkinematic_viscosity = \"1e-6 m^2/s\"\n"
+      "density = \"998 kg/m^3\"\nmean_inlet_velocity = \"0.1 m/s\"\naxial_position = \"1 mm\"\n";
   spit(tmp + "/u1.toml", head + "wall_velocity = \"5 parsecs/s\"\n");
   auto r = porecert_cli("verify " + tmp + "/u1.toml");
   CHECK(r.rc == 2);

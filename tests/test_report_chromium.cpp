@@ -43,8 +43,10 @@ TEST_CASE("headless Chromium renders the report without errors and shows its ele
   REQUIRE(sh(bin + " report " + tmp + "/c.json --html " + tmp + "/c.html").rc == 0);
   REQUIRE(sh(bin + " branches --R=20 --json " + tmp + "/b.json").rc == 0);
   REQUIRE(sh(bin + " report " + tmp + "/b.json --html " + tmp + "/b.html").rc == 0);
-  const std::string flags = " --headless --no-sandbox --disable-gpu --no-first-run --disable-extensions "
-                            "--user-data-dir=" + tmp + "/profile --window-size=1280,2000 --enable-logging=stderr --v=0 ";
+  const std::string flags =
+      " --headless --no-sandbox --disable-gpu --no-first-run --disable-extensions "
+      "--user-data-dir=" +
+      tmp + "/profile --window-size=1280,2000 --enable-logging=stderr --v=0 ";
   for (const char* page : {"c", "b"}) {
     CAPTURE(page);
     const std::string url = "file://" + tmp + "/" + page + ".html";

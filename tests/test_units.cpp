@@ -29,13 +29,13 @@ TEST_CASE("quantities convert to SI by the definitions of the units, as enclosur
       {"25 \xC2\xB5m", "25e-6", model::kLength},  // micro sign
       {"20 um/s", "2e-5", model::kVelocity},
       {"1.0e-6 m^2/s", "1e-6", model::kKinematicViscosity},
-      {"1 cSt", "1e-6", model::kKinematicViscosity},       // 1 St = 1 cm^2/s
+      {"1 cSt", "1e-6", model::kKinematicViscosity},  // 1 St = 1 cm^2/s
       {"28 mPa s", "0.028", model::kDynamicViscosity},
       {"28 mPa*s", "0.028", model::kDynamicViscosity},
       {"28 mPa.s", "0.028", model::kDynamicViscosity},
-      {"1 cP", "1e-3", model::kDynamicViscosity},          // 1 P = 0.1 Pa s
+      {"1 cP", "1e-3", model::kDynamicViscosity},  // 1 P = 0.1 Pa s
       {"998 kg/m^3", "998", model::kDensity},
-      {"54 L/m^2/h", "1.5e-5", model::kVelocity},           // 54 L/(m^2 h): permeate flux
+      {"54 L/m^2/h", "1.5e-5", model::kVelocity},  // 54 L/(m^2 h): permeate flux
       {"3 min", "180", {0, 0, 1}},
       {"2 N/m^2", "2", model::kPressure},
       {"-0.2 m/s", "-0.2", model::kVelocity},
@@ -59,8 +59,8 @@ TEST_CASE("whole symbols win over prefix + symbol") {
 }
 
 TEST_CASE("bad quantities are input errors naming the field, the text and the rule") {
-  for (const char* bad : {"1.5 furlong", "1.5", "mm", "1.5 mm^", "1.5 m^10", "1.5 mm//s", "1.5 mm/", "nan m", "1.5 kmin",
-                          "1,5 mm", ""}) {
+  for (const char* bad :
+       {"1.5 furlong", "1.5", "mm", "1.5 mm^", "1.5 m^10", "1.5 mm//s", "1.5 mm/", "nan m", "1.5 kmin", "1,5 mm", ""}) {
     CAPTURE(bad);
     try {
       model::parse_quantity("channel.half_width", bad);

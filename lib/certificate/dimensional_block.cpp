@@ -32,8 +32,9 @@ json dimensional_json(const model::Channel& c, const arith::Id& fp0, const arith
 model::Channel read_dimensional(const json& cert, const std::string& R_lo, const std::string& R_hi) {
   const json& d = cert.at("dimensional");
   if (!d.is_object() || !d.contains("inputs") || !d["inputs"].is_object())
-    throw format_error("certificate: key \"dimensional.inputs\" is missing or not an object (written by porecert "
-                       "verify from a case file's [channel] table)");
+    throw format_error(
+        "certificate: key \"dimensional.inputs\" is missing or not an object (written by porecert "
+        "verify from a case file's [channel] table)");
   std::map<std::string, std::string> f;
   for (auto it = d["inputs"].begin(); it != d["inputs"].end(); ++it) {
     if (!it.value().is_string())

@@ -78,7 +78,8 @@ CaseSettings read_case_file(const std::string& path) {
     for (auto&& [k, v] : *ch) {
       const std::string field = "channel." + std::string(k.str());
       if (!v.is_string())
-        throw input_error(field + ": must be a string with a unit, e.g. \"1.5 mm\" (numbers without units are refused)");
+        throw input_error(field +
+                          ": must be a string with a unit, e.g. \"1.5 mm\" (numbers without units are refused)");
       c.channel[std::string(k.str())] = *v.value<std::string>();
     }
     if (c.R)

@@ -8,8 +8,8 @@ namespace porecert::model {
 using arith::Id;
 
 const std::vector<std::string>& channel_fields() {
-  static const std::vector<std::string> f{"half_width",         "wall_velocity", "kinematic_viscosity",
-                                          "dynamic_viscosity",  "density",       "mean_inlet_velocity",
+  static const std::vector<std::string> f{"half_width",        "wall_velocity", "kinematic_viscosity",
+                                          "dynamic_viscosity", "density",       "mean_inlet_velocity",
                                           "axial_position"};
   return f;
 }
@@ -19,14 +19,16 @@ Channel read_channel(const std::map<std::string, std::string>& fields, const std
     bool known = false;
     for (const auto& f : channel_fields()) known = known || f == k;
     if (!known)
-      throw input_error(prefix + "." + k + ": unknown field (allowed: half_width, wall_velocity, kinematic_viscosity "
-                                            "or dynamic_viscosity, density, mean_inlet_velocity, axial_position)");
+      throw input_error(prefix + "." + k +
+                        ": unknown field (allowed: half_width, wall_velocity, kinematic_viscosity "
+                        "or dynamic_viscosity, density, mean_inlet_velocity, axial_position)");
   }
   Channel c;
   c.given = fields;
   auto need = [&](const std::string& k) -> const std::string& {
     auto it = fields.find(k);
-    if (it == fields.end()) throw input_error(prefix + "." + k + ": missing (rule: docs/units.md §U2 lists the fields)");
+    if (it == fields.end())
+      throw input_error(prefix + "." + k + ": missing (rule: docs/units.md §U2 lists the fields)");
     return it->second;
   };
   auto positive = [&](const std::string& k, const Id& v, bool allow_zero) {
@@ -51,8 +53,8 @@ Channel read_channel(const std::map<std::string, std::string>& fields, const std
     positive("kinematic_viscosity", c.nu, false);
     c.mu = c.nu * c.rho;
   } else {
-    c.mu = parse_quantity_as(F("dynamic_viscosity"), need("dynamic_viscosity"), kDynamicViscosity,
-                             "a dynamic viscosity");
+    c.mu =
+        parse_quantity_as(F("dynamic_viscosity"), need("dynamic_viscosity"), kDynamicViscosity, "a dynamic viscosity");
     positive("dynamic_viscosity", c.mu, false);
     c.nu = c.mu / c.rho;
   }
@@ -81,8 +83,7 @@ std::vector<DimResult> dimensional_results(const Channel& c, const Id& fp0, cons
   r.push_back({"centreline_velocity", "centre-line velocity", "u(x,0)", "m/s", "(U4)", U * fp0});
   r.push_back({"wall_shear_stress", "wall shear stress (fluid on wall, downstream positive)", "tau_w", "Pa", "(U6)",
                Id(0) - c.mu * U * fpp1 / c.h});
-  r.push_back({"pressure_gradient", "axial pressure gradient", "dp/dx", "Pa/m", "(U7)",
-               c.mu * U * K / (c.h * c.h)});
+  r.push_back({"pressure_gradient", "axial pressure gradient", "dp/dx", "Pa/m", "(U7)", c.mu * U * K / (c.h * c.h)});
   r.push_back({"wall_velocity", "wall-normal velocity at the wall", "v(x,h)", "m/s", "(U5)", c.V});
   return r;
 }

@@ -17,16 +17,15 @@ struct Symbol {
 };
 // Whole symbols are tried before prefix + symbol, so "min" is a minute and "mm" a millimetre.
 const Symbol kSymbols[] = {
-    {"m", "1", {1, 0, 0}},      {"g", "1e-3", {0, 1, 0}},    {"s", "1", {0, 0, 1}},
-    {"min", "60", {0, 0, 1}},   {"h", "3600", {0, 0, 1}},    {"L", "1e-3", {3, 0, 0}},
-    {"Pa", "1", {-1, 1, -2}},   {"N", "1", {1, 1, -2}},      {"P", "0.1", {-1, 1, -1}},
-    {"St", "1e-4", {2, 0, -1}},
+    {"m", "1", {1, 0, 0}},     {"g", "1e-3", {0, 1, 0}},   {"s", "1", {0, 0, 1}},    {"min", "60", {0, 0, 1}},
+    {"h", "3600", {0, 0, 1}},  {"L", "1e-3", {3, 0, 0}},   {"Pa", "1", {-1, 1, -2}}, {"N", "1", {1, 1, -2}},
+    {"P", "0.1", {-1, 1, -1}}, {"St", "1e-4", {2, 0, -1}},
 };
 struct Prefix {
   const char* name;
   const char* factor;
 };
-const Prefix kPrefixes[] = {{"G", "1e9"}, {"M", "1e6"}, {"k", "1e3"},      {"c", "1e-2"},     {"m", "1e-3"},
+const Prefix kPrefixes[] = {{"G", "1e9"},  {"M", "1e6"},         {"k", "1e3"},         {"c", "1e-2"}, {"m", "1e-3"},
                             {"u", "1e-6"}, {"\xC2\xB5", "1e-6"}, {"\xCE\xBC", "1e-6"}, {"n", "1e-9"}, {"p", "1e-12"}};
 const char* kRule =
     "units are SI symbols m, g, s, min, h, L, Pa, N, P, St with prefixes G M k c m u n p, combined with "

@@ -11,8 +11,8 @@ namespace porecert::model {
 
 // Exponents of (metre, kilogram, second).
 using Dim = std::array<int, 3>;
-inline constexpr Dim kLength{1, 0, 0}, kVelocity{1, 0, -1}, kKinematicViscosity{2, 0, -1},
-    kDynamicViscosity{-1, 1, -1}, kDensity{-3, 1, 0}, kPressure{-1, 1, -2}, kPressureGradient{-2, 1, -2};
+inline constexpr Dim kLength{1, 0, 0}, kVelocity{1, 0, -1}, kKinematicViscosity{2, 0, -1}, kDynamicViscosity{-1, 1, -1},
+    kDensity{-3, 1, 0}, kPressure{-1, 1, -2}, kPressureGradient{-2, 1, -2};
 
 struct Quantity {
   arith::Id si;  // encloses the exact value in SI base units

@@ -88,8 +88,8 @@ Solution read_solution(const json& j, const std::string& where) {
                          "\" is missing (rule: a decimal string)");
   for (int k = 0; k < 4; ++k) {
     try {
-      s.val[k] = boost::numeric::hull(arith::from_decimal<Id>(s.st.values[k][0]),
-                                      arith::from_decimal<Id>(s.st.values[k][1]));
+      s.val[k] =
+          boost::numeric::hull(arith::from_decimal<Id>(s.st.values[k][0]), arith::from_decimal<Id>(s.st.values[k][1]));
     } catch (const std::exception&) {
       throw format_error("certificate: " + key_name(where, std::string("values.") + kValKeys[k]) + " = [" +
                          s.st.values[k][0] + ", " + s.st.values[k][1] + "] (rule: decimal strings, lo <= hi)");
@@ -105,7 +105,8 @@ Solution read_solution(const json& j, const std::string& where) {
                          " = \"" + s.st.candidate_hex[i] + "\" (rule: a hex or decimal number)");
     }
   }
-  if (x.size() < 3) throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex") + " is too short");
+  if (x.size() < 3)
+    throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex") + " is too short");
   const cheb::Series<Id> u(x.begin() + 2, x.end());
   const auto D = model::lift<Id>({Id(0), x[0], Id(0)}, u);
   // docs/report.md (R1): f(eta) in fbar(eta) +- e_0, f'(eta) in fbar'(eta) +- e_1 at each sample.
@@ -126,8 +127,9 @@ std::vector<Solution> read_all(const ReportInput& in) {
   std::vector<Solution> v;
   for (std::size_t i = 0; i < in.entries.size(); ++i)
     v.push_back(read_solution(
-        in.entries[i], in.kind == "certificate" ? "" : (in.kind == "branches" ? "solutions[" : "certificates[") +
-                                                           std::to_string(i) + "]"));
+        in.entries[i], in.kind == "certificate"
+                           ? ""
+                           : (in.kind == "branches" ? "solutions[" : "certificates[") + std::to_string(i) + "]"));
   return v;
 }
 
@@ -137,11 +139,20 @@ std::string esc(const std::string& s) {
   std::string o;
   for (char c : s) {
     switch (c) {
-      case '&': o += "&amp;"; break;
-      case '<': o += "&lt;"; break;
-      case '>': o += "&gt;"; break;
-      case '"': o += "&quot;"; break;
-      default: o += c;
+      case '&':
+        o += "&amp;";
+        break;
+      case '<':
+        o += "&lt;";
+        break;
+      case '>':
+        o += "&gt;";
+        break;
+      case '"':
+        o += "&quot;";
+        break;
+      default:
+        o += c;
     }
   }
   return o;
@@ -163,21 +174,24 @@ std::string jstr(const json& j, const std::string& key, const std::string& dflt 
   return j.contains(key) && j[key].is_string() ? j[key].get<std::string>() : dflt;
 }
 
+// Display unit for a plot axis (plots only; tables stay in SI).
 struct DisplayUnit {
-  double factor;  // display value = SI value * factor
+  double factor = 1;  // display value = SI value * factor (1, 1e3, 1e6: exact doubles)
   std::string name;
-  std::string factor_dec;  // the factor as a decimal, for rigorous table conversion
 };
 DisplayUnit pick_unit(double maxabs, bool velocity) {
-  const std::vector<DisplayUnit> u = velocity ? std::vector<DisplayUnit>{{1, "m/s", "1"},
-                                                                         {1e3, "mm/s", "1e3"},
-                                                                         {1e6, "µm/s", "1e6"}}
-                                              : std::vector<DisplayUnit>{{1, "m", "1"},
-                                                                         {1e3, "mm", "1e3"},
-                                                                         {1e6, "µm", "1e6"}};
-  for (const auto& d : u)
-    if (maxabs * d.factor >= 0.1) return d;
-  return u.back();
+  DisplayUnit d;
+  if (maxabs >= 0.1) {
+    d.factor = 1;
+    d.name = velocity ? "m/s" : "m";
+  } else if (maxabs * 1e3 >= 0.1) {
+    d.factor = 1e3;
+    d.name = velocity ? "mm/s" : "mm";
+  } else {
+    d.factor = 1e6;
+    d.name = velocity ? "µm/s" : "µm";
+  }
+  return d;
 }
 
 // ---- SVG ----------------------------------------------------------------------------------
@@ -211,7 +225,8 @@ std::vector<double> nice_ticks(double lo, double hi, int want = 5) {
       break;
     }
   std::vector<double> t;
-  for (double v = std::ceil(lo / step) * step; v <= hi + 1e-9 * span; v += step) t.push_back(std::abs(v) < 1e-12 * step ? 0 : v);
+  for (double v = std::ceil(lo / step) * step; v <= hi + 1e-9 * span; v += step)
+    t.push_back(std::abs(v) < 1e-12 * step ? 0 : v);
   return t;
 }
 
@@ -232,8 +247,8 @@ std::string axes(const Frame& f, const std::string& xlabel, const std::string& y
   o << "<rect class=\"plotbg\" x=\"" << f.L << "\" y=\"" << f.T << "\" width=\"" << f.W - f.L - f.R << "\" height=\""
     << f.H - f.T - f.B << "\"/>\n";
   for (double t : nice_ticks(f.xlo, f.xhi)) {
-    o << "<line class=\"grid\" x1=\"" << num(f.px(t)) << "\" x2=\"" << num(f.px(t)) << "\" y1=\"" << f.T
-      << "\" y2=\"" << f.H - f.B << "\"/>";
+    o << "<line class=\"grid\" x1=\"" << num(f.px(t)) << "\" x2=\"" << num(f.px(t)) << "\" y1=\"" << f.T << "\" y2=\""
+      << f.H - f.B << "\"/>";
     o << "<text class=\"tick\" x=\"" << num(f.px(t)) << "\" y=\"" << f.H - f.B + 16 << "\" text-anchor=\"middle\">"
       << num(t, 4) << "</text>\n";
   }
@@ -243,8 +258,8 @@ std::string axes(const Frame& f, const std::string& xlabel, const std::string& y
     o << "<text class=\"tick\" x=\"" << f.L - 6 << "\" y=\"" << num(f.py(t) + 4) << "\" text-anchor=\"end\">"
       << num(t, 4) << "</text>\n";
   }
-  o << "<text class=\"axlabel\" x=\"" << (f.L + f.W - f.R) / 2 << "\" y=\"" << f.H - 12
-    << "\" text-anchor=\"middle\">" << esc(xlabel) << "</text>\n";
+  o << "<text class=\"axlabel\" x=\"" << (f.L + f.W - f.R) / 2 << "\" y=\"" << f.H - 12 << "\" text-anchor=\"middle\">"
+    << esc(xlabel) << "</text>\n";
   o << "<text class=\"axlabel\" transform=\"translate(16," << (f.T + f.H - f.B) / 2
     << ") rotate(-90)\" text-anchor=\"middle\">" << esc(ylabel) << "</text>\n";
   return o.str();
@@ -300,13 +315,15 @@ std::string branch_svg(const std::vector<Solution>& sols) {
   double rlo = INFINITY, rhi = -INFINITY, vlo = INFINITY, vhi = -INFINITY;
   for (const auto& s : sols) {
     if (!s.certified) continue;
-    const Id R = boost::numeric::hull(arith::from_decimal<Id>(s.st.problem.R_lo), arith::from_decimal<Id>(s.st.problem.R_hi));
+    const Id R =
+        boost::numeric::hull(arith::from_decimal<Id>(s.st.problem.R_lo), arith::from_decimal<Id>(s.st.problem.R_hi));
     rlo = std::min(rlo, R.lower());
     rhi = std::max(rhi, R.upper());
     vlo = std::min(vlo, s.val[2].lower());
     vhi = std::max(vhi, s.val[2].upper());
   }
-  const double rpad = std::max(0.08 * (rhi - rlo), 0.05 * std::abs(rhi) + 0.5), vpad = std::max(0.08 * (vhi - vlo), 0.5);
+  const double rpad = std::max(0.08 * (rhi - rlo), 0.05 * std::abs(rhi) + 0.5),
+               vpad = std::max(0.08 * (vhi - vlo), 0.5);
   f.xlo = rlo - rpad;
   f.xhi = rhi + rpad;
   f.ylo = vlo - vpad;
@@ -318,7 +335,8 @@ std::string branch_svg(const std::vector<Solution>& sols) {
   for (std::size_t k = 0; k < sols.size(); ++k) {
     const auto& s = sols[k];
     if (!s.certified) continue;
-    const Id R = boost::numeric::hull(arith::from_decimal<Id>(s.st.problem.R_lo), arith::from_decimal<Id>(s.st.problem.R_hi));
+    const Id R =
+        boost::numeric::hull(arith::from_decimal<Id>(s.st.problem.R_lo), arith::from_decimal<Id>(s.st.problem.R_hi));
     double x0 = f.px(R.lower()), x1 = f.px(R.upper()), y0 = f.py(s.val[2].upper()), y1 = f.py(s.val[2].lower());
     const double cx = 0.5 * (x0 + x1), cy = 0.5 * (y0 + y1);
     x0 = std::min(x0, cx - 4);
@@ -327,12 +345,14 @@ std::string branch_svg(const std::vector<Solution>& sols) {
     y1 = std::max(y1, cy + 4);
     const std::string col = color_for(s, k);
     o << "<rect class=\"box\" x=\"" << num(x0) << "\" y=\"" << num(y0) << "\" width=\"" << num(x1 - x0)
-      << "\" height=\"" << num(y1 - y0) << "\" stroke=\"" << col << "\"><title>" << esc(s.label.empty() ? "unlabelled" : "type " + s.label)
-      << ": R in " << esc(R_text(s.st)) << ", f''(1) in " << esc(ival_str(s.st.values[2])) << "</title></rect>";
+      << "\" height=\"" << num(y1 - y0) << "\" stroke=\"" << col << "\"><title>"
+      << esc(s.label.empty() ? "unlabelled" : "type " + s.label) << ": R in " << esc(R_text(s.st)) << ", f''(1) in "
+      << esc(ival_str(s.st.values[2])) << "</title></rect>";
     o << "<text class=\"boxlabel\" x=\"" << num(x1 + 4) << "\" y=\"" << num(cy + 4) << "\" fill=\"" << col << "\">"
       << esc(s.label.empty() ? "?" : s.label) << "</text>\n";
   }
-  o << "<text class=\"ptitle\" x=\"" << f.L << "\" y=\"20\">f''(1) against R: certified boxes (drawn at least 8 px)</text>\n</svg>\n";
+  o << "<text class=\"ptitle\" x=\"" << f.L
+    << "\" y=\"20\">f''(1) against R: certified boxes (drawn at least 8 px)</text>\n</svg>\n";
   return o.str();
 }
 
@@ -349,7 +369,7 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   double h_disp = 1;
   std::string pos_label = "eta = y/h  (0 centre plane, ±1 walls)", u_label = "f'(eta)  (u / U(x))",
               v_label = "f(eta)  (v / V)";
-  DisplayUnit uu{1, "", "1"}, vu{1, "", "1"}, hu{1, "", "1"};
+  DisplayUnit uu, vu, hu;
   if (dim) {
     const auto& c = *cert[0]->channel;
     const double umax = std::abs(model::mean_velocity_at_x(c).upper()) * 2, vmax = arith::mag_up(c.V);
@@ -391,11 +411,15 @@ std::string profiles_section(const std::vector<Solution>& sols) {
     << " sample points across the channel (candidate ± the certified sup-norm error, at most " << num(emax, 3)
     << " in f and f'; outlines are drawn one pixel wide, so a tube thinner than a pixel shows as a line). "
        "Between sample points the drawing interpolates; the table below lists enclosures at chosen points.</p>\n";
-  o << "<div class=\"plots\">" << profile_svg("plot-u", dim ? "Axial velocity u(x, y)" : "Axial velocity shape f'(eta)", ub, u_label, pos_label, h_disp)
-    << profile_svg("plot-v", dim ? "Wall-normal velocity v(y)" : "Stream-function shape f(eta)", vb, v_label, pos_label, h_disp)
+  o << "<div class=\"plots\">"
+    << profile_svg("plot-u", dim ? "Axial velocity u(x, y)" : "Axial velocity shape f'(eta)", ub, u_label, pos_label,
+                   h_disp)
+    << profile_svg("plot-v", dim ? "Wall-normal velocity v(y)" : "Stream-function shape f(eta)", vb, v_label, pos_label,
+                   h_disp)
     << "</div>\n";
   // Enclosures at chosen points, first solution (or each, compactly).
-  o << "<table id=\"profile-table\" class=\"data\"><caption>Certified enclosures at chosen points</caption><tr><th>solution</th><th>eta = y/h</th><th>f(eta)</th><th>f'(eta)</th>";
+  o << "<table id=\"profile-table\" class=\"data\"><caption>Certified enclosures at chosen "
+       "points</caption><tr><th>solution</th><th>eta = y/h</th><th>f(eta)</th><th>f'(eta)</th>";
   if (dim) o << "<th>u [m/s]</th><th>v [m/s]</th>";
   o << "</tr>\n";
   for (std::size_t k = 0; k < cert.size(); ++k)
@@ -428,24 +452,29 @@ std::string values_section(const std::vector<Solution>& sols) {
     for (int i : {0, 2, 3, 1}) o << "<td class=\"iv\">" << esc(ival_str(s.st.values[i])) << "</td>";
     std::string st = "—";
     if (s.j.contains("structure") && s.j["structure"].is_object())
-      st = "type " + jstr(s.j["structure"], "label", "?") + "; flow reversal: " + jstr(s.j["structure"], "flow_reversal", "?");
+      st = "type " + jstr(s.j["structure"], "label", "?") +
+           "; flow reversal: " + jstr(s.j["structure"], "flow_reversal", "?");
     o << "<td>" << esc(st) << "</td></tr>\n";
   }
-  o << "</table>\n<p class=\"note\">Every interval holds for the true solution and, when R is an interval, for every R in "
+  o << "</table>\n<p class=\"note\">Every interval holds for the true solution and, when R is an interval, for every R "
+       "in "
        "it. Decimal ends are rounded outward.</p></section>\n";
   return o.str();
 }
 
 std::string proof_section(const std::vector<Solution>& sols) {
   std::ostringstream o;
-  o << "<section><h2>The inequalities that close the proof</h2>\n<p class=\"note\">Newton–Kantorovich in the ℓ¹ space of "
+  o << "<section><h2>The inequalities that close the proof</h2>\n<p class=\"note\">Newton–Kantorovich in the ℓ¹ space "
+       "of "
        "(f'(0), K, Chebyshev coefficients of f'''): with Z = max(Z0, Z1), p(r) = Z2 r² − (1 − Z) r + Y0. If Z &lt; 1 "
        "and p(r) &lt; 0 at r = r₋, a true solution lies within r₋ of the candidate and is the only one in the ball "
        "of radius r₊ (docs/method.md (M3.1)–(M3.2)). The verdicts below are re-evaluated here from the stated "
        "(rounded-up) bounds in 256-bit interval arithmetic; p grows with Y0, Z and Z2, so a negative bound from "
        "rounded-up inputs is still a proof of the inequality.</p>\n";
-  o << "<table id=\"proof\" class=\"data\"><tr><th>solution</th><th>Y0</th><th>Z0</th><th>Z1</th><th>Z2</th><th>‖A‖</th>"
-       "<th>r₋ (existence)</th><th>r₊ (uniqueness)</th><th>Z &lt; 1</th><th>p(r₋) &lt; 0</th><th>modes / arithmetic</th></tr>\n";
+  o << "<table id=\"proof\" "
+       "class=\"data\"><tr><th>solution</th><th>Y0</th><th>Z0</th><th>Z1</th><th>Z2</th><th>‖A‖</th>"
+       "<th>r₋ (existence)</th><th>r₊ (uniqueness)</th><th>Z &lt; 1</th><th>p(r₋) &lt; 0</th><th>modes / "
+       "arithmetic</th></tr>\n";
   for (std::size_t k = 0; k < sols.size(); ++k) {
     const auto& s = sols[k];
     if (!s.certified) continue;
@@ -475,9 +504,9 @@ std::string proof_section(const std::vector<Solution>& sols) {
     o << "<tr><td>" << esc(solution_name(s, k, sols.size())) << "</td>";
     for (const char* key : {"Y0", "Z0", "Z1", "Z2"}) o << "<td class=\"iv\">" << esc(jstr(b, key)) << "</td>";
     o << "<td class=\"iv\">" << esc(jstr(b, "norm_A")) << "</td><td class=\"iv\">" << esc(jstr(s.j, "existence_radius"))
-      << "</td><td class=\"iv\">" << esc(jstr(s.j, "uniqueness_radius")) << "</td><td class=\"" << (zv == "yes" ? "ok" : "fail")
-      << "\">" << zv << "</td><td class=\"" << (pv == "yes" ? "ok" : "fail") << "\">" << pv << esc(pbound)
-      << "</td><td>" << esc(modes) << "</td></tr>\n";
+      << "</td><td class=\"iv\">" << esc(jstr(s.j, "uniqueness_radius")) << "</td><td class=\""
+      << (zv == "yes" ? "ok" : "fail") << "\">" << zv << "</td><td class=\"" << (pv == "yes" ? "ok" : "fail") << "\">"
+      << pv << esc(pbound) << "</td><td>" << esc(modes) << "</td></tr>\n";
   }
   o << "</table>\n<p class=\"note\">Consequences stated in the certificate: sup|f⁽ᵏ⁾ − f̄⁽ᵏ⁾| ≤ ";
   bool first = true;
@@ -508,13 +537,16 @@ std::string dimensional_section(const std::vector<Solution>& sols) {
          "case file)</caption><tr><th>field</th><th>as given</th></tr>\n";
     for (const auto& [key, text] : c.given) o << "<tr><td>" << esc(key) << "</td><td>" << esc(text) << "</td></tr>\n";
     o << "<tr><td>R = V h / ν (U1)</td><td class=\"iv\">" << ival(model::reynolds(c), 12) << "</td></tr>\n</table>\n";
-    o << "<table id=\"dimensional\" class=\"data\"><caption>Certified results at x = " << esc(c.given.at("axial_position"))
+    o << "<table id=\"dimensional\" class=\"data\"><caption>Certified results at x = "
+      << esc(c.given.at("axial_position"))
       << "</caption><tr><th>quantity</th><th>enclosure</th><th>unit</th><th>docs/units.md</th></tr>\n";
     const auto res = model::dimensional_results(c, s.val[0], s.val[2], s.val[3]);
     for (const auto& r : res)
-      o << "<tr id=\"dim-" << r.key << "\"><td>" << esc(r.label) << " <i>" << esc(r.symbol) << "</i></td><td class=\"iv\">"
-        << ival(r.value) << "</td><td>" << esc(r.unit) << "</td><td>" << esc(r.equation) << "</td></tr>\n";
-    o << "</table></div>\n<p class=\"note\">Similarity form ψ = (h U₀ − V x) f(η), η = y/h: u = U(x) f'(η), v = V f(η), "
+      o << "<tr id=\"dim-" << r.key << "\"><td>" << esc(r.label) << " <i>" << esc(r.symbol)
+        << "</i></td><td class=\"iv\">" << ival(r.value) << "</td><td>" << esc(r.unit) << "</td><td>" << esc(r.equation)
+        << "</td></tr>\n";
+    o << "</table></div>\n<p class=\"note\">Similarity form ψ = (h U₀ − V x) f(η), η = y/h: u = U(x) f'(η), v = V "
+         "f(η), "
          "U(x) = U₀ − V x / h. τ_w = −μ U(x) f''(1) / h is the axial force per unit area the fluid exerts on a wall; "
          "dp/dx = μ U(x) K / h². Every entry is an interval computed from the certified enclosures and the exactly "
          "read inputs with outward rounding.</p></section>\n";
@@ -569,7 +601,8 @@ ReportInput load(const std::string& path) {
     in.kind = "list";
     for (const auto& e : t) in.entries.push_back(e);
   } else if (t.is_object() && t.contains("solutions")) {
-    if (!t["solutions"].is_array()) throw format_error("report input: key \"solutions\" must be an array of certificates");
+    if (!t["solutions"].is_array())
+      throw format_error("report input: key \"solutions\" must be an array of certificates");
     in.kind = "branches";
     for (const auto& e : t["solutions"]) in.entries.push_back(e);
   } else if (t.is_object() && t.contains("certificates")) {
@@ -581,8 +614,7 @@ ReportInput load(const std::string& path) {
     in.kind = "certificate";
     in.entries.push_back(t);
   }
-  if (in.entries.empty())
-    throw format_error("report input: '" + path + "' holds no certificates (rule: at least one)");
+  if (in.entries.empty()) throw format_error("report input: '" + path + "' holds no certificates (rule: at least one)");
   if (in.entries.size() > 500)
     throw format_error("report input: '" + path + "' holds " + std::to_string(in.entries.size()) +
                        " certificates (rule: at most 500 per page)");
@@ -592,7 +624,8 @@ ReportInput load(const std::string& path) {
 
 Profile certified_profile(const json& cert) {
   const Solution s = read_solution(cert, "");
-  if (!s.certified) throw format_error("certificate: status is \"" + s.st.status + "\" (rule: a profile needs a proof)");
+  if (!s.certified)
+    throw format_error("certificate: status is \"" + s.st.status + "\" (rule: a profile needs a proof)");
   Profile p;
   for (int i = 0; i <= kSamples; ++i) p.eta.push_back(double(i) / kSamples);
   p.f = s.f;
@@ -615,7 +648,8 @@ std::string render_html(const ReportInput& in, const std::string& source_name) {
   const auto sols = read_all(in);
   g_mixed_R = false;
   for (const auto& s : sols)
-    g_mixed_R = g_mixed_R || s.st.problem.R_lo != sols[0].st.problem.R_lo || s.st.problem.R_hi != sols[0].st.problem.R_hi;
+    g_mixed_R =
+        g_mixed_R || s.st.problem.R_lo != sols[0].st.problem.R_lo || s.st.problem.R_hi != sols[0].st.problem.R_hi;
   std::size_t ncert = 0;
   for (const auto& s : sols) ncert += s.certified;
   std::string title = "porecert report";
@@ -647,7 +681,8 @@ std::string render_html(const ReportInput& in, const std::string& source_name) {
   }
   o << "</ul>";
   if (in.kind == "branches")
-    o << "<p class=\"note\">Searched region: " << esc(jstr(in.top, "searched_region")) << ". Pairwise distinct (disjoint "
+    o << "<p class=\"note\">Searched region: " << esc(jstr(in.top, "searched_region"))
+      << ". Pairwise distinct (disjoint "
       << "enclosures): " << (in.top.value("pairwise_disjoint", false) ? "proved" : "not proved")
       << ". No claim is made about solutions outside the searched region.</p>";
   o << "</section>\n";
