@@ -362,8 +362,14 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   // Dimensional plots only when there is exactly one certified solution with channel data.
   std::vector<const Solution*> cert;
   for (const auto& s : sols)
-    if (s.certified) cert.push_back(&s);
+    if (s.certified && cert.size() < 6) cert.push_back(&s);  // at most six overlaid profiles
   if (cert.empty()) return "";
+  std::size_t ncert_all = 0;
+  for (const auto& s : sols) ncert_all += s.certified;
+  // Colours by label when the labels tell the curves apart, else by position.
+  bool unique_labels = true;
+  for (std::size_t a = 0; a < cert.size(); ++a)
+    for (std::size_t b = a + 1; b < cert.size(); ++b) unique_labels = unique_labels && cert[a]->label != cert[b]->label;
   const bool dim = cert.size() == 1 && cert[0]->channel;
   std::vector<Band> ub, vb;
   double h_disp = 1;
@@ -383,7 +389,10 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   }
   for (std::size_t k = 0; k < cert.size(); ++k) {
     const Solution& s = *cert[k];
-    Band u{solution_name(s, k, cert.size()), color_for(s, k), {}, {}, {}}, v = u;
+    const std::size_t idx = static_cast<std::size_t>(cert[k] - sols.data());  // position in the input
+    Band u{
+        solution_name(s, idx, sols.size()), unique_labels ? color_for(s, k) : std::string(kColors[k % 6]), {}, {}, {}},
+        v = u;
     // Mirror to the whole channel: f' is even and f odd in eta (symmetric problem).
     for (int i = -kSamples; i <= kSamples; ++i) {
       const int a = std::abs(i);
@@ -410,7 +419,10 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   o << "<p class=\"note\">Shaded: the certified enclosure of the true solution at each of " << 2 * kSamples + 1
     << " sample points across the channel (candidate ± the certified sup-norm error, at most " << num(emax, 3)
     << " in f and f'; outlines are drawn one pixel wide, so a tube thinner than a pixel shows as a line). "
-       "Between sample points the drawing interpolates; the table below lists enclosures at chosen points.</p>\n";
+       "Between sample points the drawing interpolates; the table below lists enclosures at chosen points.";
+  if (ncert_all > cert.size())
+    o << " Profiles of the first " << cert.size() << " of " << ncert_all << " certified solutions are shown.";
+  o << "</p>\n";
   o << "<div class=\"plots\">"
     << profile_svg("plot-u", dim ? "Axial velocity u(x, y)" : "Axial velocity shape f'(eta)", ub, u_label, pos_label,
                    h_disp)
@@ -425,8 +437,9 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   for (std::size_t k = 0; k < cert.size(); ++k)
     for (int i : {0, 32, 64, 96, 128}) {
       const Solution& s = *cert[k];
-      o << "<tr><td>" << esc(solution_name(s, k, cert.size())) << "</td><td>" << num(double(i) / kSamples)
-        << "</td><td class=\"iv\">" << ival(s.f[i]) << "</td><td class=\"iv\">" << ival(s.fp[i]) << "</td>";
+      o << "<tr><td>" << esc(solution_name(s, static_cast<std::size_t>(cert[k] - sols.data()), sols.size()))
+        << "</td><td>" << num(double(i) / kSamples) << "</td><td class=\"iv\">" << ival(s.f[i])
+        << "</td><td class=\"iv\">" << ival(s.fp[i]) << "</td>";
       if (dim)
         o << "<td class=\"iv\">" << ival(model::axial_velocity(*s.channel, s.fp[i])) << "</td><td class=\"iv\">"
           << ival(model::normal_velocity(*s.channel, s.f[i])) << "</td>";
@@ -676,7 +689,7 @@ std::string render_html(const ReportInput& in, const std::string& source_name) {
     o << "<li><b>" << esc(solution_name(s, k, sols.size())) << "</b> at R = " << esc(R_text(s.st)) << ": "
       << (s.certified ? "certified" : "NOT certified");
     if (s.certified && s.j.contains("structure") && s.j["structure"].is_object())
-      o << "; " << esc(jstr(s.j["structure"], "reason", ""));
+      o << " — " << esc(jstr(s.j["structure"], "reason", ""));
     o << "</li>";
   }
   o << "</ul>";
