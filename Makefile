@@ -28,6 +28,7 @@ build: configure
 demo: configure
 	cmake --build $(BUILD) -j $(JOBS) --target porecert
 	./$(BUILD)/porecert verify cases/membrane-module.toml --json $(BUILD)/membrane-module.cert.json
+	./$(BUILD)/porecert report $(BUILD)/membrane-module.cert.json --html $(BUILD)/membrane-module.html
 
 test: build
 	cd $(BUILD) && ctest --output-on-failure -j $(JOBS)

@@ -3,6 +3,7 @@
 #include <iostream>
 
 #include "certificate/certificate.hpp"
+#include "certificate/dimensional_block.hpp"
 #include "commands.hpp"
 #include "model_options.hpp"
 #include "proof/branches.hpp"
@@ -129,6 +130,7 @@ int run_verify(const VerifyOptions& v) {
   proof::CertifyRequest req;
   certificate::Problem prob;
   std::string json_path = v.json;
+  std::optional<model::Channel> channel;  // dimensional inputs (docs/units.md), from the case file
   if (!v.case_file.empty()) {
     const auto c = model::read_case_file(v.case_file);
     if (c.R) std::tie(req.R_lo, req.R_hi) = *c.R;
@@ -138,10 +140,13 @@ int run_verify(const VerifyOptions& v) {
     if (c.precision_bits) req.precision_bits = *c.precision_bits;
     if (c.certificate && json_path.empty()) json_path = *c.certificate;
     prob.scenario = c.title;
+    if (!c.channel.empty()) channel = model::read_channel(c.channel);
     req.model = spec_from(v.mo, &c);
   } else {
     req.model = spec_from(v.mo);
   }
+  if (!v.R.empty() && channel)
+    throw input_error("--R: '" + v.R + "' given with a case file whose [channel] table determines R (rule: give one)");
   if (!v.R.empty()) std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", v.R);
   if (req.R_lo.empty())
     throw input_error("--R: missing (give --R=VALUE or --R=LO:HI, or a case file with flow.reynolds)");
@@ -210,9 +215,19 @@ int run_verify(const VerifyOptions& v) {
                     : "  C3 ball:   not certified (" + std::string(u.direct.reason.substr(0, 80)) + "...)";
     }
   }
+  if (channel && o.certified) {
+    cert["dimensional"] = certificate::dimensional_json(*channel, o.fp0_id, o.fpp1_id, o.K_id);
+  }
   const std::string text = cert.dump(2) + "\n";
   if (json_path != "-") print_summary(o, req.R_lo, req.R_hi, prob.branch);
   if (json_path != "-" && !c3_line.empty()) std::printf("%s\n", c3_line.c_str());
+  if (json_path != "-" && cert.contains("dimensional")) {
+    std::printf("  dimensional results (docs/units.md; R from the [channel] inputs):\n");
+    for (const auto& [k, r] : cert["dimensional"]["results"].items())
+      std::printf("    %-54s in [%s, %s] %s\n", r["label"].get<std::string>().c_str(),
+                  r["value"][0].get<std::string>().c_str(), r["value"][1].get<std::string>().c_str(),
+                  r["unit"].get<std::string>().c_str());
+  }
   if (!json_path.empty()) {
     certificate::write_atomic(json_path, text);
     if (json_path != "-") std::printf("  certificate written to %s\n", json_path.c_str());

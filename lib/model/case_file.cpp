@@ -3,6 +3,7 @@
 #include <toml++/toml.h>
 
 #include "arith/interval.hpp"
+#include "model/dimensional.hpp"
 
 namespace porecert::model {
 
@@ -57,9 +58,9 @@ CaseSettings read_case_file(const std::string& path) {
   CaseSettings c;
   for (auto&& [k, v] : t) {
     const std::string key(k.str());
-    if (key != "case" && key != "flow" && key != "certify" && key != "model")
+    if (key != "case" && key != "flow" && key != "certify" && key != "model" && key != "channel")
       throw input_error("case file '" + path + "': unknown table [" + key +
-                        "] (allowed: [case], [flow], [certify], [model])");
+                        "] (allowed: [case], [flow], [channel], [certify], [model])");
   }
   if (const toml::table* mt = t["model"].as_table()) {
     for (auto&& [k, v] : *mt) {
@@ -86,6 +87,21 @@ CaseSettings read_case_file(const std::string& path) {
       c.R = {s, s};
     }
     check_R("flow.reynolds", c.R->first, c.R->second);
+  }
+  if (const toml::table* ch = t["channel"].as_table()) {
+    for (auto&& [k, v] : *ch) {
+      const std::string field = "channel." + std::string(k.str());
+      if (!v.is_string())
+        throw input_error(field +
+                          ": must be a string with a unit, e.g. \"1.5 mm\" (numbers without units are refused)");
+      c.channel[std::string(k.str())] = *v.value<std::string>();
+    }
+    if (c.R)
+      throw input_error("flow.reynolds: given together with [channel], which determines R = V h / nu (rule: give one)");
+    const Channel chan = read_channel(c.channel);
+    const arith::Id R = reynolds(chan);
+    c.R = {arith::decimal_lower(R, 17), arith::decimal_upper(R, 17)};
+    check_R("channel (R = wall_velocity * half_width / kinematic_viscosity)", c.R->first, c.R->second);
   }
   if (auto s = t["certify"]["branch"].value<std::string>()) c.branch = *s;
   if (auto n = t["certify"]["modes"].value<std::int64_t>()) c.modes = static_cast<int>(*n);

@@ -1,6 +1,7 @@
 // Case files (TOML, porecert's own layout; docs/case-files.md). Decimals are read as strings
 // so that they are exact: a TOML float is refused with a message saying how to write it.
 #pragma once
+#include <map>
 #include <optional>
 #include <stdexcept>
 #include <string>
@@ -24,6 +25,9 @@ struct CaseSettings {
   // [model] table (docs/models.md): name and parameters as decimal strings.
   std::optional<std::string> model_name;
   std::vector<std::pair<std::string, std::string>> model_params;
+  // [channel]: dimensional inputs as given ("1.5 mm"); when present, R is derived from them
+  // (docs/units.md) and `R` holds the outward decimal ends of R = V h / nu.
+  std::map<std::string, std::string> channel;
 };
 
 // Parses a case file; throws input_error naming the field.
