@@ -47,9 +47,10 @@ void print_outcome(const proof::SubmissionOutcome& r) {
     std::printf("  NOT CERTIFIED: %s\n", o.failure.c_str());
     return;
   }
-  std::printf("  CERTIFIED (%s): true solution within %.3g of the %s candidate, unique within %.3g\n",
-              o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str(),
-              o.existence_radius, r.used_refinement ? "Newton-refined" : "submitted", o.uniqueness_radius);
+  std::printf(
+      "  CERTIFIED (%s): true solution within %.3g of the %s candidate, unique within %.3g\n",
+      o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str(),
+      o.existence_radius, r.used_refinement ? "Newton-refined" : "submitted", o.uniqueness_radius);
   std::printf("  f''(1) in [%s, %s]   K in [%s, %s]\n", o.fpp1.lo.c_str(), o.fpp1.hi.c_str(), o.K.lo.c_str(),
               o.K.hi.c_str());
   if (r.distance) print_distance(*r.distance);

@@ -110,7 +110,8 @@ Submission read_csv(const std::string& path) {
       throw input_error("CSV '" + path + "': more than " + std::to_string(kCsvMaxRows) + " rows (rule: at most " +
                         std::to_string(kCsvMaxRows) + ")");
     const auto fields = split(line);
-    const std::string where = "CSV '" + path + "' row " + std::to_string(row) + " (line " + std::to_string(lineno) + ")";
+    const std::string where =
+        "CSV '" + path + "' row " + std::to_string(row) + " (line " + std::to_string(lineno) + ")";
     if (fields.size() != role.size())
       throw input_error(where + ": " + std::to_string(fields.size()) + " fields, the header has " +
                         std::to_string(role.size()) + " (rule: every row has one value per header column)");
@@ -275,7 +276,8 @@ ImportReport candidate_from(const Submission& s, double R, int max_modes) {
       const auto pts = cheb::chebyshev_points<double>(n);
       std::vector<double> vals(n);
       for (int q = 0; q < n; ++q) {
-        auto it = std::upper_bound(P.begin(), P.end(), pts[q], [](double e, const Piece<double>& p) { return e < p.x1; });
+        auto it =
+            std::upper_bound(P.begin(), P.end(), pts[q], [](double e, const Piece<double>& p) { return e < p.x1; });
         if (it == P.end()) --it;
         vals[q] = piece_eval(*it, pts[q], 3 - k);
       }
@@ -294,8 +296,8 @@ ImportReport candidate_from(const Submission& s, double R, int max_modes) {
   const NewtonReport nr = solve_with_decay(md, x, std::max(32, modes_of(md, x)), max_modes);
   rep.converged = nr.converged;
   rep.x = nr.converged ? nr.x : x;
-  rep.log.push_back(nr.converged ? "Newton refinement converged in " + std::to_string(nr.iterations) +
-                                       " iterations, " + std::to_string(modes_of(md, nr.x)) + " modes"
+  rep.log.push_back(nr.converged ? "Newton refinement converged in " + std::to_string(nr.iterations) + " iterations, " +
+                                       std::to_string(modes_of(md, nr.x)) + " modes"
                                  : "Newton refinement did not converge: " + nr.note);
   return rep;
 }

@@ -57,7 +57,7 @@ template <class S>
 S piece_eval(const Piece<S>& p, const S& eta, int j = 0);
 
 struct ImportReport {
-  Vec x;  // candidate in the layout [f'(0), K, u_0 ..] (Newton-refined when converged)
+  Vec x;               // candidate in the layout [f'(0), K, u_0 ..] (Newton-refined when converged)
   Vec x_as_submitted;  // the same before Newton (the submission projected on the layout)
   bool converged = false;
   std::vector<std::string> log;

@@ -15,7 +15,8 @@ using Rnd = arith::rounded_nearest_outward;
 namespace {
 
 const json& key(const json& j, const std::string& path, const std::string& k) {
-  if (!j.is_object() || !j.contains(k)) throw format_error("certificate: key \"" + path + k + "\" is missing (truncated?)");
+  if (!j.is_object() || !j.contains(k))
+    throw format_error("certificate: key \"" + path + k + "\" is missing (truncated?)");
   return j.at(k);
 }
 std::string text(const json& j, const std::string& path, const std::string& k) {
@@ -113,10 +114,11 @@ RecheckReport independent_recheck(const json& j) {
   arith::PrecisionScope exact(1024);
   auto dec = [](const std::string& d) { return arith::from_decimal<Im>(d); };
   for (int i = 0; i < 4; ++i) {
-    const bool ok =
-        dec(s.values[i][0]).lower() <= dec(mine[i]->lo).lower() && dec(mine[i]->hi).upper() <= dec(s.values[i][1]).upper();
+    const bool ok = dec(s.values[i][0]).lower() <= dec(mine[i]->lo).lower() &&
+                    dec(mine[i]->hi).upper() <= dec(s.values[i][1]).upper();
     add(std::string("values.") + names[i], ok,
-        "stored [" + s.values[i][0] + ", " + s.values[i][1] + "], recomputed [" + mine[i]->lo + ", " + mine[i]->hi + "]");
+        "stored [" + s.values[i][0] + ", " + s.values[i][1] + "], recomputed [" + mine[i]->lo + ", " + mine[i]->hi +
+            "]");
   }
   return rep;
 }

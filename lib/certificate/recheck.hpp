@@ -14,15 +14,15 @@
 namespace porecert::certificate {
 
 struct RecheckField {
-  std::string field;   // e.g. "bounds.Y0", "values.f''(1)"
+  std::string field;  // e.g. "bounds.Y0", "values.f''(1)"
   bool ok = false;
   std::string detail;  // stored vs recomputed
 };
 
 struct RecheckReport {
-  bool proof_ok = false;      // the re-run proof certifies
-  std::string failure;        // when it does not
-  int precision_bits = 0;     // of the re-run
+  bool proof_ok = false;   // the re-run proof certifies
+  std::string failure;     // when it does not
+  int precision_bits = 0;  // of the re-run
   int modes = 0;
   std::vector<RecheckField> fields;  // in certificate order
   double seconds = 0;

@@ -1,9 +1,10 @@
 #include "model/claims_file.hpp"
 
+#include <toml++/toml.h>
+
 #include <algorithm>
 #include <filesystem>
 #include <set>
-#include <toml++/toml.h>
 
 #include "arith/interval.hpp"
 
@@ -93,7 +94,8 @@ void parse_sign(const std::string& text, const std::string& field, Claim& c, con
   } else if (rest == "< 0") {
     c.positive = false;
   } else {
-    throw input_error(field + ": '" + text + "' (rule: \"f^(k) > 0\" or \"f^(k) < 0\", then optionally \" on [a, b)\")");
+    throw input_error(field + ": '" + text +
+                      "' (rule: \"f^(k) > 0\" or \"f^(k) < 0\", then optionally \" on [a, b)\")");
   }
   if (on.empty()) on = "[0, 1]";
   parse_interval(on, field, c);
@@ -143,14 +145,16 @@ ClaimsFile read_claims_file(const std::string& path) {
   }
   if (const toml::array* st = (*cand)["start"].as_array()) {
     if (st->size() != 2) throw input_error("[candidate] start: must be [f'(0), f'''(0)], two decimal strings");
-    f.start = std::make_pair(decimal(*st->get(0), "[candidate] start[0]"), decimal(*st->get(1), "[candidate] start[1]"));
+    f.start =
+        std::make_pair(decimal(*st->get(0), "[candidate] start[0]"), decimal(*st->get(1), "[candidate] start[1]"));
     ++sources;
   }
   if (sources != 1)
     throw input_error("[candidate]: " + std::to_string(sources) +
                       " candidate sources given (rule: exactly one of csv, chebyshev, start, branch)");
   if (auto m = (*cand)["modes"].value<std::int64_t>()) {
-    if (*m != 0 && (*m < 8 || *m > 4000)) throw input_error("[candidate] modes: " + std::to_string(*m) + " is outside 8..4000");
+    if (*m != 0 && (*m < 8 || *m > 4000))
+      throw input_error("[candidate] modes: " + std::to_string(*m) + " is outside 8..4000");
     f.modes = static_cast<int>(*m);
   }
   if (auto p = (*cand)["precision_bits"].value<std::int64_t>()) {
@@ -176,7 +180,8 @@ ClaimsFile read_claims_file(const std::string& path) {
       if (auto q = (*c)["quantity"].value<std::string>()) {
         k.quantity = *q;
         if (std::find(std::begin(kValueKeys), std::end(kValueKeys), k.quantity) == std::end(kValueKeys))
-          throw input_error(field + " quantity: '" + k.quantity + "' is not a value key (rule: f'(0), f'''(0), f''(1), K)");
+          throw input_error(field + " quantity: '" + k.quantity +
+                            "' is not a value key (rule: f'(0), f'''(0), f''(1), K)");
         const bool has_value = c->contains("value"), has_below = c->contains("below"), has_above = c->contains("above");
         if (has_value + has_below + has_above != 1)
           throw input_error(field + ": give exactly one of value, below, above with quantity '" + k.quantity + "'");

@@ -64,7 +64,8 @@ Verdict bound_claim(const Claim& c, const CertifyOutcome& o) {
   r.evidence = "certified " + c.quantity + " in " + interval_text(e.lo, e.hi);
   const Tri less = arith::tri_less(E, X);  // true value < bound ?
   r.holds = c.below ? less : (arith::tri_less(X, E));
-  if (r.holds == Tri::unsure) r.to_decide = "the enclosure contains the bound " + c.bound + "; a narrower enclosure would decide";
+  if (r.holds == Tri::unsure)
+    r.to_decide = "the enclosure contains the bound " + c.bound + "; a narrower enclosure would decide";
   return r;
 }
 
@@ -83,17 +84,18 @@ Verdict sign_claim(const Claim& c, const CertifyOutcome& o) {
   const bool has0 = c.a_closed && a.upper() == 0, has1 = c.b_closed && b.lower() == 1;
   if ((c.order == 0 || c.order == 2) && has0) {
     r.holds = Tri::no;
-    r.evidence = name + "(0) = 0 exactly (boundary condition), so " + name + (c.positive ? " > 0" : " < 0") +
-                 " fails at 0";
+    r.evidence =
+        name + "(0) = 0 exactly (boundary condition), so " + name + (c.positive ? " > 0" : " < 0") + " fails at 0";
     return r;
   }
   if (has1 && (c.order == 1 || (c.order == 0 && !c.positive))) {
     r.holds = Tri::no;
-    r.evidence = name + "(1) = " + (c.order == 1 ? "0" : "1") + " exactly (boundary condition), so the claim fails at 1";
+    r.evidence =
+        name + "(1) = " + (c.order == 1 ? "0" : "1") + " exactly (boundary condition), so the claim fails at 1";
     return r;
   }
   if (o.structure.label == "I" && ((c.order == 1 && c.positive && (b.upper() < 1 || !c.b_closed)) ||
-                                    (c.order == 2 && !c.positive && (a.lower() > 0 || !c.a_closed)))) {
+                                   (c.order == 2 && !c.positive && (a.lower() > 0 || !c.a_closed)))) {
     r.holds = Tri::yes;
     r.evidence = "certified type I structure: " + o.structure.reason;
     return r;
@@ -116,8 +118,8 @@ Verdict sign_claim(const Claim& c, const CertifyOutcome& o) {
       return r;
     }
   r.evidence = "sign certified on " + spans_text(good) + "; unsure on " + spans_text(cov.unsure);
-  r.to_decide = "a smaller error bound (more precision or modes) where the sign is unsure, unless " + name +
-                " has a zero there";
+  r.to_decide =
+      "a smaller error bound (more precision or modes) where the sign is unsure, unless " + name + " has a zero there";
   return r;
 }
 
@@ -145,9 +147,8 @@ struct Search {
 
 Verdict solutions_claim(const Claim& c, const Search& s) {
   Verdict r;
-  r.evidence = "the branch search of " + s.region + " found " + std::to_string(s.found) +
-               " certified solutions, " + std::to_string(s.distinct) +
-               " of them proved pairwise distinct (so at least that many solutions exist)";
+  r.evidence = "the branch search of " + s.region + " found " + std::to_string(s.found) + " certified solutions, " +
+               std::to_string(s.distinct) + " of them proved pairwise distinct (so at least that many solutions exist)";
   if (c.exactly) {
     if (s.distinct > c.count) {
       r.holds = Tri::no;
@@ -169,14 +170,15 @@ Verdict solutions_claim(const Claim& c, const Search& s) {
 std::string certified_digits(const std::string& lo, const std::string& hi, std::string* unit) {
   arith::PrecisionScope scope(kExactBits);
   const Im L = num(lo), H = num(hi);
-  const Im mid = (L + H) / Im(2);
-  for (int d = 39; d >= 0; --d) {
+  const arith::Mpfr m = ((L + H) / Im(2)).lower();
+  const Im mid(m, m);              // a point: its rounding down and up bracket the nearest decimal
+  for (int d = 40; d >= 1; --d) {  // d significant digits
     for (const std::string& D : {arith::decimal_lower(mid, d), arith::decimal_upper(mid, d)}) {
       const auto e = D.find_first_of("eE");
       if (e == std::string::npos) continue;
       const int expo = std::stoi(D.substr(e + 1));
-      const std::string u = "1e" + std::to_string(expo - d);
-      const Im half = num("5e" + std::to_string(expo - d - 1));
+      const std::string u = "1e" + std::to_string(expo - d + 1);
+      const Im half = num("5e" + std::to_string(expo - d));
       const Im Dv = num(D);
       if ((Dv - half).upper() < L.lower() && H.upper() < (Dv + half).lower()) {
         if (unit) *unit = u;
@@ -197,10 +199,18 @@ std::vector<Verdict> judge(const model::ClaimsFile& f, const CertifyRequest& req
       v.to_decide = "a candidate that certifies";
     } else {
       switch (c.kind) {
-        case Claim::Kind::value: v = value_claim(c, o); break;
-        case Claim::Kind::bound: v = bound_claim(c, o); break;
-        case Claim::Kind::sign: v = sign_claim(c, o); break;
-        case Claim::Kind::unique: v = unique_claim(c, o); break;
+        case Claim::Kind::value:
+          v = value_claim(c, o);
+          break;
+        case Claim::Kind::bound:
+          v = bound_claim(c, o);
+          break;
+        case Claim::Kind::sign:
+          v = sign_claim(c, o);
+          break;
+        case Claim::Kind::unique:
+          v = unique_claim(c, o);
+          break;
         case Claim::Kind::solutions:
           if (!search) {
             const BranchesOutcome b = certify_branches(req);

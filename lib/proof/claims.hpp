@@ -12,10 +12,10 @@ namespace porecert::proof {
 
 struct Verdict {
   int index = 0;
-  std::string claim;               // the claim in words
+  std::string claim;                      // the claim in words
   arith::Tri holds = arith::Tri::unsure;  // yes = accepted, no = rejected, unsure = undecided
-  std::string evidence;            // the certified fact the verdict rests on
-  std::string to_decide;           // undecided only: what would decide it
+  std::string evidence;                   // the certified fact the verdict rests on
+  std::string to_decide;                  // undecided only: what would decide it
 };
 inline const char* verdict_word(arith::Tri t) {
   return t == arith::Tri::yes ? "accepted" : t == arith::Tri::no ? "rejected" : "undecided";

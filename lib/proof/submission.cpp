@@ -78,8 +78,8 @@ struct PointSeries {
 // (p is cubic, so g'''' = s'''')
 // with the point values enclosed tightly. The largest box bound bounds the sup; |g(m)| is a
 // lower bound of it. Stops when upper <= 1.25 lower or after the box budget.
-std::pair<double, double> sup_series_minus_pieces(const cheb::Series<Id>& s,
-                                                  const std::vector<candidate::Piece<Id>>& P, int& boxes) {
+std::pair<double, double> sup_series_minus_pieces(const cheb::Series<Id>& s, const std::vector<candidate::Piece<Id>>& P,
+                                                  int& boxes) {
   const cheb::Series<Id> s1 = cheb::derivative(s), s2 = cheb::derivative(s1), s3 = cheb::derivative(s2);
   PointSeries e0(s), e1(s1), e2(s2), e3(s3);
   const double L4 = cheb::norm1_up(cheb::derivative(s3));
@@ -203,7 +203,8 @@ SubmissionOutcome certify_submission(const CertifyRequest& req, const candidate:
   } else {
     r.log.push_back("Newton refinement of the submission did not converge");
   }
-  if (!r.outcome.certified && r.outcome.failure.empty()) r.outcome.failure = "neither the submission nor its refinement certified";
+  if (!r.outcome.certified && r.outcome.failure.empty())
+    r.outcome.failure = "neither the submission nor its refinement certified";
   r.log.insert(r.log.end(), r.outcome.log.begin(), r.outcome.log.end());
   if (r.outcome.certified) r.distance = submission_distance(s, r.outcome);
   return r;

@@ -13,8 +13,8 @@
 namespace porecert::proof {
 
 struct Gap {
-  double lower = 0;  // ≤ sup|P_k − f*^{(k)}| (rounded down; 0 when nothing is known)
-  double upper = 0;  // ≥ sup|P_k − f*^{(k)}| (rounded up)
+  double lower = 0;               // ≤ sup|P_k − f*^{(k)}| (rounded down; 0 when nothing is known)
+  double upper = 0;               // ≥ sup|P_k − f*^{(k)}| (rounded up)
   double to_candidate_upper = 0;  // ≥ sup|P_k − f̄^{(k)}|
   int boxes = 0;
 };
@@ -39,8 +39,8 @@ namespace porecert::proof {
 
 struct SubmissionOutcome {
   CertifyOutcome outcome;
-  bool certified_as_submitted = false;  // the submission's own point passed the proof, no Newton step
-  bool used_refinement = false;         // outcome is about the Newton-refined point
+  bool certified_as_submitted = false;         // the submission's own point passed the proof, no Newton step
+  bool used_refinement = false;                // outcome is about the Newton-refined point
   std::optional<SubmissionDistance> distance;  // when certified
   std::vector<std::string> log;
 };
