@@ -4,6 +4,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <fstream>
 #include <string>
 
 #include "candidate/import.hpp"
@@ -108,4 +109,36 @@ TEST_CASE("scipy solve_bvp output at R = 10: certified, with a rigorous distance
   // over the whole interval, so it may exceed a single point's error; both are measured here).
   CHECK(d.sup[2]->upper <= 10 * std::max(1e-12, std::fabs(fpp1_sub - ref.fpp1_d)) + 1e-7);
   CHECK(d.sup[0]->upper < 1e-8);
+}
+
+TEST_CASE("Chebyshev series import: the exact R = 0 solution is at distance ~0, and R shifts it by O(R)") {
+  // Exact case: at R = 0 the solution is (3η − η³)/2 (Berman 1953; docs/method.md), whose series
+  // docs/examples/poiseuille-series.json holds exactly. The certified distance must be tiny.
+  const auto s = candidate::read_chebyshev_json(PORECERT_SOURCE_DIR "/docs/examples/poiseuille-series.json");
+  proof::CertifyRequest req;
+  req.R_lo = req.R_hi = "0";
+  auto r = proof::certify_submission(req, s);
+  REQUIRE(r.outcome.certified);
+  for (int k = 0; k < 4; ++k) CHECK(r.distance->sup[k]->upper < 1e-12);
+  // At R = 0.01 the true profile differs from the R = 0 one by O(R): a positive lower bound is proved.
+  req.R_lo = req.R_hi = "0.01";
+  r = proof::certify_submission(req, s);
+  REQUIRE(r.outcome.certified);
+  CHECK(r.distance->sup[2]->lower > 1e-4);
+  CHECK(r.distance->sup[2]->upper < 1e-2);
+  // The distance of f''(1) is inside the sup: |−3 − f''(1)| ≤ sup|P2 − f''|.
+  CHECK(std::fabs(-3 - 0.5 * (r.outcome.fpp1_id.lower() + r.outcome.fpp1_id.upper())) <= r.distance->sup[2]->upper);
+}
+
+TEST_CASE("Chebyshev JSON bad input: numbers refused, unknown keys refused") {
+  std::ofstream(std::string("/tmp/porecert-test-key.json")) << "{\"series_of\": \"f\", \"coeffs\": []}";
+  auto r = porecert_run("import /tmp/porecert-test-key.json --R=1");
+  CHECK(r.rc == 2);
+  CHECK(has(r.out, "unknown key \"coeffs\""));
+  std::ofstream(std::string("/tmp/porecert-test-num.json"))
+      << "{\"series_of\": \"f\", \"coefficients\": [0.5, 1, 2, 3]}";
+  r = porecert_run("import /tmp/porecert-test-num.json --R=1");
+  CHECK(r.rc == 2);
+  CHECK(has(r.out, "coefficients[0]"));
+  CHECK(has(r.out, "rounded to binary"));
 }
