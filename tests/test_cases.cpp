@@ -43,13 +43,20 @@ TEST_CASE("every case in cases/ certifies and its report renders") {
     CHECK(r.rc == 0);
     const auto j = read_json(cert);
     CHECK(j["status"] == "certified");
-    REQUIRE(j.contains("dimensional"));
-    for (const char* k : {"wall_shear_stress", "pressure_gradient", "centreline_velocity"}) {
-      CHECK(j["dimensional"]["results"].contains(k));
-      CHECK(j["dimensional"]["results"][k]["value"].size() == 2);
+    // Cases with a [channel] table carry certified dimensional results (docs/units.md); a model
+    // variant case (docs/models.md) may give R alone.
+    std::ifstream in(e.path());
+    const std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+    const bool dimensional = text.find("[channel]") != std::string::npos;
+    CHECK(j.contains("dimensional") == dimensional);
+    if (dimensional) {
+      for (const char* k : {"wall_shear_stress", "pressure_gradient", "centreline_velocity"}) {
+        CHECK(j["dimensional"]["results"].contains(k));
+        CHECK(j["dimensional"]["results"][k]["value"].size() == 2);
+      }
+      CHECK(j["dimensional"]["results"]["wall_shear_stress"]["unit"] == "Pa");
+      CHECK(j["dimensional"]["results"]["pressure_gradient"]["unit"] == "Pa/m");
     }
-    CHECK(j["dimensional"]["results"]["wall_shear_stress"]["unit"] == "Pa");
-    CHECK(j["dimensional"]["results"]["pressure_gradient"]["unit"] == "Pa/m");
     CHECK(porecert_cli("report " + cert + " --html " + tmp + "/" + name + ".html").rc == 0);
   }
   CHECK(n >= 5);

@@ -1,9 +1,11 @@
 // porecert verify / porecert recheck: certify one solution, or re-check a stored certificate.
+#include <chrono>
 #include <cstdio>
 #include <iostream>
 
 #include "certificate/certificate.hpp"
 #include "certificate/dimensional_block.hpp"
+#include "certificate/recheck.hpp"
 #include "commands.hpp"
 #include "model_options.hpp"
 #include "proof/branches.hpp"
@@ -304,6 +306,57 @@ int recheck_fold_file(const std::string& path, const nlohmann::json& j) {
   return 0;
 }
 
+// Re-check of a reduced-method certificate (docs/method.md §S) or of a model other than Berman's:
+// the proof is re-run from the stored candidate alone (reduced: at a different precision, 53 → 64
+// bits, b → b + 64) and every stated value must contain the re-proved one.
+int recheck_stated_values(const std::string& path, const certificate::Stored& s) {
+  const bool reduced = s.method == "reduced-ivp";
+  const int bits = !reduced ? s.precision_bits : s.precision_bits <= 53 ? 64 : s.precision_bits + 64;
+  proof::CertifyOutcome o;
+  const auto t0 = std::chrono::steady_clock::now();
+  try {
+    o = reduced ? proof::outcome_of(proof::reduced_prove(s.problem.R_lo, s.problem.R_hi, s.eps, s.nth, s.reduced_s[0],
+                                                         s.reduced_s[1], s.reduced_s[2], s.reduced_s[3], bits))
+                : proof::recheck_model(s.model, s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+  } catch (const std::invalid_argument& e) {
+    throw input_error("certificate '" + path + "': " + e.what());
+  }
+  o.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  std::printf("porecert recheck: %s (R = [%s, %s], %s; stored at %d bits, re-run at %d bits)\n", path.c_str(),
+              s.problem.R_lo.c_str(), s.problem.R_hi.c_str(),
+              reduced ? "reduced ODE" : (std::to_string(o.modes) + " modes, " + s.model.name).c_str(), s.precision_bits,
+              bits);
+  if (!o.certified) {
+    std::printf("  REJECTED: the proof does not go through: %s\n", o.failure.c_str());
+    return 1;
+  }
+  bool ok = reduced || o.existence_radius <= s.existence_radius;
+  if (!ok)
+    std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius,
+                s.existence_radius);
+  // Compare decimal strings exactly: rounding both the same way at 1024 bits preserves their order.
+  arith::PrecisionScope exact(1024);
+  auto num = [](const std::string& d) { return arith::from_decimal<arith::Im>(d).lower(); };
+  for (const auto& nv : o.values) {  // the model's keys (docs/models.md)
+    const std::array<std::string, 2>* stated = nullptr;
+    for (const auto& [k, v] : s.named_values)
+      if (k == nv.key) stated = &v;
+    if (!stated) {
+      std::printf("  REJECTED: the certificate states no value for %s\n", nv.key.c_str());
+      ok = false;
+      continue;
+    }
+    const bool holds = num((*stated)[0]) <= num(nv.enc.lo) && num(nv.enc.hi) <= num((*stated)[1]);
+    std::printf("  %-4s values.%-21s stated [%s, %s], re-proved [%s, %s]\n", holds ? "ok" : "FAIL", nv.key.c_str(),
+                (*stated)[0].c_str(), (*stated)[1].c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str());
+    ok = ok && holds;
+  }
+  std::printf(ok ? "  CONFIRMED: proof re-run from the stored candidate; every stated value holds (%.2f s)\n"
+                 : "  REJECTED: a stated value does not contain the re-proved one (%.2f s)\n",
+              o.seconds);
+  return ok ? 0 : 1;
+}
+
 Action register_recheck(CLI::App& app) {
   auto* sub = app.add_subcommand("recheck", "Re-run the proof from a certificate's own content and compare");
   auto path = std::make_shared<std::string>();
@@ -318,51 +371,37 @@ Action register_recheck(CLI::App& app) {
     } catch (const certificate::format_error& e) {
       throw input_error(e.what());
     }
-    const auto o =
-        s.method == "reduced-ivp"
-            ? proof::outcome_of(proof::reduced_prove(s.problem.R_lo, s.problem.R_hi, s.eps, s.nth, s.reduced_s[0],
-                                                     s.reduced_s[1], s.reduced_s[2], s.reduced_s[3], s.precision_bits))
-            : proof::recheck_model(s.model, s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
-    std::printf("porecert recheck: %s (R = [%s, %s], %s, %d bits)\n", path->c_str(), s.problem.R_lo.c_str(),
-                s.problem.R_hi.c_str(),
-                s.method == "reduced-ivp" ? "reduced ODE" : (std::to_string(o.modes) + " modes").c_str(),
-                o.precision_bits);
     if (s.status != "certified") {
-      std::printf("  the certificate claims no proof (status \"%s\"); re-run: %s\n", s.status.c_str(),
-                  o.certified ? "certified" : o.failure.c_str());
+      std::printf("porecert recheck: %s: the certificate claims no proof (status \"%s\")\n", path->c_str(),
+                  s.status.c_str());
       return 1;
     }
-    if (!o.certified) {
-      std::printf("  REJECTED: the proof does not go through: %s\n", o.failure.c_str());
+    if (s.method == "reduced-ivp" || !s.model.is_berman()) return recheck_stated_values(*path, s);
+    certificate::RecheckReport rep;
+    try {
+      rep = certificate::independent_recheck(doc);
+    } catch (const certificate::format_error& e) {
+      throw input_error(e.what());
+    }
+    std::printf("porecert recheck: %s (R = [%s, %s], %d modes; stored at %d bits, re-derived at MPFR %d bits)\n",
+                path->c_str(), s.problem.R_lo.c_str(), s.problem.R_hi.c_str(), rep.modes, s.precision_bits,
+                rep.precision_bits);
+    if (!rep.proof_ok) {
+      std::printf("  REJECTED: the proof does not go through: %s\n", rep.failure.c_str());
       return 1;
     }
-    bool ok = o.existence_radius <= s.existence_radius;
-    if (!ok)
-      std::printf("  REJECTED: re-computed existence radius %.17g exceeds the stated %.17g\n", o.existence_radius,
-                  s.existence_radius);
-    // Compare decimal strings exactly: rounding both the same way at 1024 bits preserves their order.
-    arith::PrecisionScope exact(1024);
-    auto num = [](const std::string& d) { return arith::from_decimal<arith::Im>(d).lower(); };
-    // Every stated value (the model's keys, docs/models.md) must contain the re-proved one.
-    for (const auto& nv : o.values) {
-      const std::array<std::string, 2>* stated = nullptr;
-      for (const auto& [k, v] : s.named_values)
-        if (k == nv.key) stated = &v;
-      if (!stated) {
-        std::printf("  REJECTED: the certificate states no value for %s\n", nv.key.c_str());
-        ok = false;
-        continue;
-      }
-      if (!(num((*stated)[0]) <= num(nv.enc.lo) && num(nv.enc.hi) <= num((*stated)[1]))) {
-        std::printf("  REJECTED: stated %s = [%s, %s] does not contain the re-proved [%s, %s]\n", nv.key.c_str(),
-                    (*stated)[0].c_str(), (*stated)[1].c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str());
-        ok = false;
-      }
+    const certificate::RecheckField* first = nullptr;
+    for (const auto& f : rep.fields) {
+      std::printf("  %-4s %-28s %s\n", f.ok ? "ok" : "FAIL", f.field.c_str(), f.detail.c_str());
+      if (!f.ok && !first) first = &f;
     }
-    if (ok)
-      std::printf("  CONFIRMED: proof re-run from the stored candidate; every stated enclosure holds (%.2f s)\n",
-                  o.seconds);
-    return ok ? 0 : 1;
+    if (first) {
+      std::printf("  REJECTED: first mismatch in field %s\n", first->field.c_str());
+      return 1;
+    }
+    std::printf("  CONFIRMED: every stored bound, radius, error bound and value re-derived independently (%.2f s)\n",
+                rep.seconds);
+    return 0;
   };
 }
 

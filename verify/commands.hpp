@@ -1,5 +1,5 @@
 // The porecert command line: one register_* function per subcommand, each in its own file.
-// Exit codes everywhere: 0 certified / done, 1 not certified, 2 bad input (docs/cli.md).
+// Exit codes everywhere: 0 certified / done, 1 not certified, 2 bad input, 4 internal error (docs/cli.md).
 #pragma once
 #include <CLI/CLI.hpp>
 #include <functional>
@@ -18,6 +18,8 @@ Action register_recheck(CLI::App& app);
 Action register_branches(CLI::App& app);
 Action register_fold(CLI::App& app);
 Action register_report(CLI::App& app);
+Action register_import(CLI::App& app);
+Action register_check(CLI::App& app);
 
 // Bad user input: message names the option/field, the value and the rule; exit status 2.
 using input_error = model::input_error;

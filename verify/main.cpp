@@ -22,6 +22,8 @@ int main(int argc, char** argv) {
   add(porecert::cli::register_branches);
   add(porecert::cli::register_fold);
   add(porecert::cli::register_report);
+  add(porecert::cli::register_import);
+  add(porecert::cli::register_check);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -36,7 +38,7 @@ int main(int argc, char** argv) {
     return 2;
   } catch (const std::exception& e) {
     std::fprintf(stderr, "porecert: internal error: %s\n", e.what());
-    return 3;
+    return 4;  // 3 is check's "undecided"
   }
   return 2;
 }

@@ -46,6 +46,15 @@ void reduced_into(json& j, const proof::ReducedResult& r) {
                  {"inequalities",
                   "R(s_lo) and R(s_hi) lie on opposite sides of every R in the interval (existence, intermediate value "
                   "theorem); 0 is not in dR/ds on S (uniqueness); every Taylor step validated (docs/method.md (S9))"}};
+  json pf = json::array(), pfp = json::array();
+  for (std::size_t i = 0; i < r.profile_f.size(); ++i) {
+    pf.push_back(id_pair(r.profile_f[i]));
+    pfp.push_back(id_pair(r.profile_fp[i]));
+  }
+  j["profile"] = {{"eta", "i / " + std::to_string(proof::kProfileSamples) + ", i = 0.." +
+                              std::to_string(proof::kProfileSamples)},
+                  {"f", pf},
+                  {"f'", pfp}};
   j["candidate"] = {{"kind", "reduced shape parameter"},
                     {"eps", r.eps},
                     {"nth_zero", r.nth},

@@ -396,7 +396,7 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
   Settings cfg;
   if constexpr (std::is_same_v<I, Im>) {
     cfg.p = std::max(24, bits / 3);
-    cfg.log_tol = -0.75 * bits * std::log(2.0);
+    cfg.log_tol = std::min(std::log(1e-17), -0.75 * bits * std::log(2.0));
   }
   r.order = cfg.p;
   const I R = read_interval<I>(R_lo, R_hi);
@@ -550,6 +550,17 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     }
     for (int k = 0; k < 4; ++k)
       r.c3_error[k] = std::min(arith::upper_up(thin[k] + slope[k]), arith::upper_up(direct[k]));
+    // Profile samples for reports (docs/certificate.md): f(η_i), f'(η_i) at η_i = i/128, from the
+    // pointwise enclosures of the run over the piece, f = σ g(σ η)/R, f' = σ² g'(σ η)/R.
+    r.profile_f.clear();
+    r.profile_fp.clear();
+    for (int i = 0; i <= kProfileSamples; ++i) {
+      const I eta = I(i) / I(kProfileSamples);
+      const I tt = sig * eta;
+      const auto y = eval_at(run, 0, static_cast<int>(run.steps.size()) - 1, 4, cfg.p, tt);
+      r.profile_f.push_back(arith::to_id(sig * model::reduced_g(0, tt, s_ab, eps, y[0]) / R));
+      r.profile_fp.push_back(arith::to_id(sig * sig * model::reduced_g(1, tt, s_ab, eps, y[1]) / R));
+    }
     // Structure and flow reversal (sign f^(k) = sign R · sign g^(k)).
     Structure& S_ = r.structure;
     const int fp0 = eps * sR;
@@ -611,12 +622,18 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
         r.value_hi = q.value_hi;
         r.c3_error = q.c3_error;
         r.structure = q.structure;
+        r.profile_f = q.profile_f;
+        r.profile_fp = q.profile_fp;
         r.steps = q.steps;
         continue;
       }
       for (int k = 0; k < 4; ++k) {
         r.value[k] = hull2(r.value[k], q.value[k]);
         r.c3_error[k] = std::max(r.c3_error[k], q.c3_error[k]);
+      }
+      for (std::size_t i = 0; i < r.profile_f.size(); ++i) {
+        r.profile_f[i] = hull2(r.profile_f[i], q.profile_f[i]);
+        r.profile_fp[i] = hull2(r.profile_fp[i], q.profile_fp[i]);
       }
       if (q.structure.label != r.structure.label || q.structure.reversal != r.structure.reversal) {
         r.structure = Structure{};

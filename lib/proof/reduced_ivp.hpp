@@ -16,6 +16,8 @@
 
 namespace porecert::proof {
 
+inline constexpr int kProfileSamples = 128;
+
 struct ReducedResult {
   bool certified = false;
   std::string failure;            // the inequality or check that failed, and by how much
@@ -33,6 +35,8 @@ struct ReducedResult {
   // Half-width of the certified tube: |f^(k)(η) − m_k(η)| ≤ c3_error[k] for every η in [0,1], with
   // m_k the midpoint of the certified pointwise enclosure (S11).
   std::array<double, 4> c3_error{};
+  // Enclosures of f(η_i) and f'(η_i), η_i = i / kProfileSamples (for reports).
+  std::vector<arith::Id> profile_f, profile_fp;
   double existence_radius = 0, uniqueness_radius = 0;  // in s, about the candidate s̄
   Structure structure;
 };

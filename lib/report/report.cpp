@@ -37,6 +37,8 @@ struct Solution {
   std::vector<Id> f, fp;                  // enclosures of f(eta_i), f'(eta_i), i = 0..kSamples
   std::optional<model::Channel> channel;  // dimensional inputs, when the certificate has them
   std::string label;                      // branch label or ""
+  bool half = true;                       // a half-channel model (the page's f'(0), f''(1), K columns)
+  bool has_profile = false;               // f, fp above are filled
 };
 
 std::string key_name(const std::string& where, const std::string& key) {
@@ -82,10 +84,14 @@ Solution read_solution(const json& j, const std::string& where) {
   }
   if (!j.contains("bounds") || !j["bounds"].is_object())
     throw format_error("certificate: key \"" + key_name(where, "bounds") + "\" is missing (rule: an object)");
+  const bool reduced = s.st.method == "reduced-ivp";
+  s.half = s.st.model.half_channel();
+  if (!s.half) return s;  // values by their own keys (values_section); no profile plot for this model
   for (const char* b : {"Y0", "Z0", "Z1", "Z2"})
-    if (!j["bounds"].contains(b) || !j["bounds"][b].is_string())
-      throw format_error("certificate: key \"" + key_name(where, std::string("bounds.") + b) +
-                         "\" is missing (rule: a decimal string)");
+    if (!reduced)
+      if (!j["bounds"].contains(b) || !j["bounds"][b].is_string())
+        throw format_error("certificate: key \"" + key_name(where, std::string("bounds.") + b) +
+                           "\" is missing (rule: a decimal string)");
   for (int k = 0; k < 4; ++k) {
     try {
       s.val[k] =
@@ -94,6 +100,33 @@ Solution read_solution(const json& j, const std::string& where) {
       throw format_error("certificate: " + key_name(where, std::string("values.") + kValKeys[k]) + " = [" +
                          s.st.values[k][0] + ", " + s.st.values[k][1] + "] (rule: decimal strings, lo <= hi)");
     }
+  }
+  if (reduced) {  // the proof's own profile samples (docs/certificate.md, reduced-ivp)
+    const auto bad = [&](const std::string& what) {
+      return format_error("certificate: " + key_name(where, "profile") + " " + what + " (rule: arrays f and f' of " +
+                          std::to_string(kSamples + 1) + " [lo, hi] decimal pairs)");
+    };
+    if (!j.contains("profile") || !j["profile"].is_object()) throw bad("is missing");
+    for (const char* key : {"f", "f'"}) {
+      const json& a = j["profile"].value(key, json());
+      if (!a.is_array() || a.size() != kSamples + 1)
+        throw bad(std::string("has no array ") + key + " of the right length");
+      for (const auto& e : a) {
+        if (!e.is_array() || e.size() != 2 || !e[0].is_string() || !e[1].is_string())
+          throw bad("holds a malformed pair");
+        Id v;
+        try {
+          v = boost::numeric::hull(arith::from_decimal<Id>(e[0].get<std::string>()),
+                                   arith::from_decimal<Id>(e[1].get<std::string>()));
+        } catch (const std::exception&) {
+          throw bad("holds a pair that is not two decimals");
+        }
+        (key[1] ? s.fp : s.f).push_back(v);
+      }
+    }
+    s.has_profile = true;
+    if (j.contains("dimensional")) s.channel = certificate::read_dimensional(j, s.st.problem.R_lo, s.st.problem.R_hi);
+    return s;
   }
   // The candidate, enclosed in double intervals (MPFR coefficients are rounded outward): [f'(0), K, u...].
   std::vector<Id> x;
@@ -119,6 +152,7 @@ Solution read_solution(const json& j, const std::string& where) {
   s.f[0] = Id(0);
   s.f[kSamples] = Id(1);
   s.fp[kSamples] = Id(0);
+  s.has_profile = true;
   if (j.contains("dimensional")) s.channel = certificate::read_dimensional(j, s.st.problem.R_lo, s.st.problem.R_hi);
   return s;
 }
@@ -314,7 +348,7 @@ std::string branch_svg(const std::vector<Solution>& sols) {
   f.H = 400;
   double rlo = INFINITY, rhi = -INFINITY, vlo = INFINITY, vhi = -INFINITY;
   for (const auto& s : sols) {
-    if (!s.certified) continue;
+    if (!s.certified || !s.half) continue;
     const Id R =
         boost::numeric::hull(arith::from_decimal<Id>(s.st.problem.R_lo), arith::from_decimal<Id>(s.st.problem.R_hi));
     rlo = std::min(rlo, R.lower());
@@ -362,7 +396,7 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   // Dimensional plots only when there is exactly one certified solution with channel data.
   std::vector<const Solution*> cert;
   for (const auto& s : sols)
-    if (s.certified && cert.size() < 6) cert.push_back(&s);  // at most six overlaid profiles
+    if (s.certified && s.has_profile && cert.size() < 6) cert.push_back(&s);  // at most six overlaid profiles
   if (cert.empty()) return "";
   std::size_t ncert_all = 0;
   for (const auto& s : sols) ncert_all += s.certified;
@@ -462,7 +496,13 @@ std::string values_section(const std::vector<Solution>& sols) {
       o << "<td colspan=\"5\" class=\"fail\">not certified: " << esc(jstr(s.j, "failure")) << "</td></tr>\n";
       continue;
     }
-    for (int i : {0, 2, 3, 1}) o << "<td class=\"iv\">" << esc(ival_str(s.st.values[i])) << "</td>";
+    if (!s.half) {  // a model with its own value keys (docs/models.md)
+      std::string t;
+      for (const auto& [key, v] : s.st.named_values) t += (t.empty() ? "" : "; ") + key + " in " + ival_str(v);
+      o << "<td colspan=\"4\" class=\"iv\">" << esc(t) << "</td>";
+    } else {
+      for (int i : {0, 2, 3, 1}) o << "<td class=\"iv\">" << esc(ival_str(s.st.values[i])) << "</td>";
+    }
     std::string st = "—";
     if (s.j.contains("structure") && s.j["structure"].is_object())
       st = "type " + jstr(s.j["structure"], "label", "?") +
@@ -492,6 +532,15 @@ std::string proof_section(const std::vector<Solution>& sols) {
     const auto& s = sols[k];
     if (!s.certified) continue;
     const json& b = s.j["bounds"];
+    if (s.st.method == "reduced-ivp") {  // docs/method.md (S10): the two inequalities of the reduced method
+      o << "<tr><td>" << esc(solution_name(s, k, sols.size())) << "</td><td colspan=\"10\">reduced method: R(s_lo) in "
+        << esc(b.contains("R(s_lo)") ? b["R(s_lo)"].dump() : "?") << ", R(s_hi) in "
+        << esc(b.contains("R(s_hi)") ? b["R(s_hi)"].dump() : "?") << " (they straddle R: existence); dR/ds on S in "
+        << esc(b.contains("dR/ds on S") ? b["dR/ds on S"].dump() : "?")
+        << " (excludes 0: uniqueness for s in S); radii in s: " << esc(jstr(s.j, "existence_radius")) << " / "
+        << esc(jstr(s.j, "uniqueness_radius")) << "</td></tr>\n";
+      continue;
+    }
     std::string zv = "unsure", pv = "unsure", pbound = "";
     {
       arith::PrecisionScope scope(256);
@@ -649,11 +698,14 @@ Profile certified_profile(const json& cert) {
 std::vector<std::string> expected_ids(const ReportInput& in) {
   const auto sols = read_all(in);
   std::vector<std::string> ids{"summary", "values", "cautions"};
-  bool any = false, dim = false;
-  for (const auto& s : sols) any = any || s.certified, dim = dim || (s.certified && s.channel);
-  if (any) ids.insert(ids.end(), {"plot-u", "plot-v", "profile-table", "proof"});
+  bool any = false, dim = false, prof = false, half = false;
+  for (const auto& s : sols)
+    any = any || s.certified, dim = dim || (s.certified && s.channel), prof = prof || (s.certified && s.has_profile),
+    half = half || (s.certified && s.half);
+  if (prof) ids.insert(ids.end(), {"plot-u", "plot-v", "profile-table"});
+  if (any) ids.push_back("proof");
   if (dim) ids.push_back("dimensional");
-  if (sols.size() > 1) ids.push_back("plot-branches");
+  if (sols.size() > 1 && half) ids.push_back("plot-branches");
   return ids;
 }
 
@@ -699,7 +751,9 @@ std::string render_html(const ReportInput& in, const std::string& source_name) {
       << "enclosures): " << (in.top.value("pairwise_disjoint", false) ? "proved" : "not proved")
       << ". No claim is made about solutions outside the searched region.</p>";
   o << "</section>\n";
-  if (sols.size() > 1 && ncert > 0)
+  bool any_half = false;
+  for (const auto& s : sols) any_half = any_half || (s.certified && s.half);
+  if (sols.size() > 1 && ncert > 0 && any_half)
     o << "<section id=\"branches\"><h2>Branch diagram</h2>" << branch_svg(sols) << "</section>\n";
   o << profiles_section(sols) << dimensional_section(sols) << values_section(sols);
   if (ncert > 0) o << proof_section(sols);

@@ -1,0 +1,244 @@
+#include "model/claims_file.hpp"
+
+#include <toml++/toml.h>
+
+#include <algorithm>
+#include <filesystem>
+#include <set>
+
+#include "arith/interval.hpp"
+
+namespace porecert::model {
+
+namespace {
+
+std::string trim(std::string s) {
+  while (!s.empty() && std::isspace(static_cast<unsigned char>(s.front()))) s.erase(s.begin());
+  while (!s.empty() && std::isspace(static_cast<unsigned char>(s.back()))) s.pop_back();
+  return s;
+}
+
+// A decimal string (or an integer), checked as a finite number.
+std::string decimal(const toml::node& n, const std::string& field) {
+  std::string t;
+  if (n.is_string()) {
+    t = *n.value<std::string>();
+  } else if (n.is_integer()) {
+    t = std::to_string(*n.value<std::int64_t>());
+  } else if (n.is_floating_point()) {
+    throw input_error(field + ": the TOML float " + std::to_string(*n.value<double>()) +
+                      " would be rounded to binary; write it as a string, e.g. \"1e-6\", so it is read exactly");
+  } else {
+    throw input_error(field + ": must be a decimal string");
+  }
+  try {
+    arith::from_decimal<arith::Id>(t);
+  } catch (const std::invalid_argument&) {
+    throw input_error(field + ": '" + t + "' is not a finite decimal number");
+  }
+  return t;
+}
+
+void only_keys(const toml::table& t, const std::string& where, const std::set<std::string>& allowed) {
+  for (auto&& [k, v] : t) {
+    (void)v;
+    if (!allowed.count(std::string(k.str()))) {
+      std::string list;
+      for (const auto& a : allowed) list += (list.empty() ? "" : ", ") + a;
+      throw input_error(where + ": unknown key '" + std::string(k.str()) + "' (allowed: " + list + ")");
+    }
+  }
+}
+
+// "[a, b)" and friends.
+void parse_interval(const std::string& text, const std::string& field, Claim& c) {
+  const std::string t = trim(text);
+  const auto comma = t.find(',');
+  if (t.size() < 5 || (t.front() != '[' && t.front() != '(') || (t.back() != ']' && t.back() != ')') ||
+      comma == std::string::npos)
+    throw input_error(field + ": '" + text + "' is not an interval (rule: like \"[0, 1)\" or \"[0.2, 0.8]\")");
+  c.a_closed = t.front() == '[';
+  c.b_closed = t.back() == ']';
+  c.a = trim(t.substr(1, comma - 1));
+  c.b = trim(t.substr(comma + 1, t.size() - comma - 2));
+  arith::Id a, b;
+  try {
+    a = arith::from_decimal<arith::Id>(c.a);
+    b = arith::from_decimal<arith::Id>(c.b);
+  } catch (const std::invalid_argument&) {
+    throw input_error(field + ": '" + text + "' has an end that is not a finite decimal number");
+  }
+  if (!(0 <= a.lower() && a.upper() < b.lower() && b.upper() <= 1))
+    throw input_error(field + ": '" + text + "' (rule: 0 <= a < b <= 1)");
+}
+
+void parse_sign(const std::string& text, const std::string& field, Claim& c, const toml::table& t) {
+  std::string s = trim(text), on;
+  if (const auto p = s.find(" on "); p != std::string::npos) {
+    on = s.substr(p + 4);
+    s = trim(s.substr(0, p));
+  }
+  if (auto o = t["on"].value<std::string>()) {
+    if (!on.empty()) throw input_error(field + ": the interval is given twice (in property and in 'on')");
+    on = *o;
+  }
+  std::size_t i = 0;
+  if (s.empty() || s[0] != 'f') throw input_error(field + ": '" + text + "' (rule: like \"f' > 0 on [0, 1)\")");
+  ++i;
+  while (i < s.size() && s[i] == '\'') ++i;
+  c.order = static_cast<int>(i) - 1;
+  const std::string rest = trim(s.substr(i));
+  if (c.order > 3) throw input_error(field + ": '" + text + "' (rule: f, f', f'' or f''')");
+  if (rest == "> 0") {
+    c.positive = true;
+  } else if (rest == "< 0") {
+    c.positive = false;
+  } else {
+    throw input_error(field + ": '" + text +
+                      "' (rule: \"f^(k) > 0\" or \"f^(k) < 0\", then optionally \" on [a, b)\")");
+  }
+  if (on.empty()) on = "[0, 1]";
+  parse_interval(on, field, c);
+  c.text = s + " on " + trim(on);
+}
+
+}  // namespace
+
+ClaimsFile read_claims_file(const std::string& path) {
+  toml::table t;
+  try {
+    t = toml::parse_file(path);
+  } catch (const toml::parse_error& e) {
+    std::string where = e.source().begin ? " at line " + std::to_string(e.source().begin.line) : "";
+    throw input_error("claims file '" + path + "'" + where + ": " + std::string(e.description()));
+  }
+  ClaimsFile f;
+  f.path = path;
+  const std::string where = "claims file '" + path + "'";
+  only_keys(t, where, {"problem", "candidate", "claim"});
+  const toml::table* prob = t["problem"].as_table();
+  if (!prob) throw input_error(where + ": table [problem] is missing (rule: [problem] with R)");
+  only_keys(*prob, "[problem]", {"R", "title"});
+  const toml::node* R = (*prob)["R"].node();
+  if (!R) throw input_error("[problem] R: missing (rule: R = \"10\" or R = [\"9.9\", \"10.1\"])");
+  if (const toml::array* arr = R->as_array()) {
+    if (arr->size() != 2) throw input_error("[problem] R: an interval must have two entries [LO, HI]");
+    f.R_lo = decimal(*arr->get(0), "[problem] R");
+    f.R_hi = decimal(*arr->get(1), "[problem] R");
+  } else {
+    f.R_lo = f.R_hi = decimal(*R, "[problem] R");
+  }
+  check_R("[problem] R", f.R_lo, f.R_hi);
+
+  const toml::table* cand = t["candidate"].as_table();
+  if (!cand) throw input_error(where + ": table [candidate] is missing (rule: csv, chebyshev, start or branch)");
+  only_keys(*cand, "[candidate]", {"csv", "chebyshev", "start", "branch", "modes", "precision_bits"});
+  const auto dir = std::filesystem::path(path).parent_path();
+  auto rel = [&](const std::string& p) { return std::filesystem::path(p).is_absolute() ? p : (dir / p).string(); };
+  int sources = 0;
+  if (auto s = (*cand)["csv"].value<std::string>()) f.csv = rel(*s), ++sources;
+  if (auto s = (*cand)["chebyshev"].value<std::string>()) f.chebyshev = rel(*s), ++sources;
+  if (auto s = (*cand)["branch"].value<std::string>()) {
+    if (*s != "I") throw input_error("[candidate] branch: '" + *s + "' (rule: \"I\"; other branches via start)");
+    f.branch = *s;
+    ++sources;
+  }
+  if (const toml::array* st = (*cand)["start"].as_array()) {
+    if (st->size() != 2) throw input_error("[candidate] start: must be [f'(0), f'''(0)], two decimal strings");
+    f.start =
+        std::make_pair(decimal(*st->get(0), "[candidate] start[0]"), decimal(*st->get(1), "[candidate] start[1]"));
+    ++sources;
+  }
+  if (sources != 1)
+    throw input_error("[candidate]: " + std::to_string(sources) +
+                      " candidate sources given (rule: exactly one of csv, chebyshev, start, branch)");
+  if (auto m = (*cand)["modes"].value<std::int64_t>()) {
+    if (*m != 0 && (*m < 8 || *m > 4000))
+      throw input_error("[candidate] modes: " + std::to_string(*m) + " is outside 8..4000");
+    f.modes = static_cast<int>(*m);
+  }
+  if (auto p = (*cand)["precision_bits"].value<std::int64_t>()) {
+    if (*p != 0 && (*p < 53 || *p > 4096))
+      throw input_error("[candidate] precision_bits: " + std::to_string(*p) + " is outside 53..4096");
+    f.precision_bits = static_cast<int>(*p);
+  }
+
+  if (const toml::node* cl = t["claim"].node()) {
+    const toml::array* arr = cl->as_array();
+    if (!arr) throw input_error(where + ": 'claim' must be an array of tables [[claim]]");
+    int idx = 0;
+    for (const toml::node& n : *arr) {
+      ++idx;
+      const std::string field = "[[claim]] #" + std::to_string(idx);
+      const toml::table* c = n.as_table();
+      if (!c) throw input_error(field + ": must be a table");
+      only_keys(*c, field,
+                {"quantity", "value", "tolerance", "relative_tolerance", "below", "above", "property", "on", "radius",
+                 "about", "exactly", "at_least", "note"});
+      Claim k;
+      k.index = idx;
+      if (auto q = (*c)["quantity"].value<std::string>()) {
+        k.quantity = *q;
+        if (std::find(std::begin(kValueKeys), std::end(kValueKeys), k.quantity) == std::end(kValueKeys))
+          throw input_error(field + " quantity: '" + k.quantity +
+                            "' is not a value key (rule: f'(0), f'''(0), f''(1), K)");
+        const bool has_value = c->contains("value"), has_below = c->contains("below"), has_above = c->contains("above");
+        if (has_value + has_below + has_above != 1)
+          throw input_error(field + ": give exactly one of value, below, above with quantity '" + k.quantity + "'");
+        if (has_value) {
+          k.kind = Claim::Kind::value;
+          k.value = decimal(*(*c)["value"].node(), field + " value");
+          if (c->contains("tolerance") && c->contains("relative_tolerance"))
+            throw input_error(field + ": give tolerance or relative_tolerance, not both");
+          if (c->contains("tolerance")) k.tolerance = decimal(*(*c)["tolerance"].node(), field + " tolerance");
+          if (c->contains("relative_tolerance")) {
+            k.tolerance = decimal(*(*c)["relative_tolerance"].node(), field + " relative_tolerance");
+            k.relative = true;
+          }
+          if (arith::from_decimal<arith::Id>(k.tolerance).lower() < 0)
+            throw input_error(field + " tolerance: '" + k.tolerance + "' is negative (rule: >= 0)");
+          k.text = k.quantity + " = " + k.value + " +/- " + k.tolerance + (k.relative ? " (relative)" : "");
+        } else {
+          k.kind = Claim::Kind::bound;
+          k.below = has_below;
+          k.bound = decimal(*(*c)[has_below ? "below" : "above"].node(), field + (has_below ? " below" : " above"));
+          k.text = k.quantity + (k.below ? " < " : " > ") + k.bound;
+        }
+      } else if (auto p = (*c)["property"].value<std::string>()) {
+        const std::string prop = trim(*p);
+        if (prop == "unique") {
+          k.kind = Claim::Kind::unique;
+          if (!c->contains("radius")) throw input_error(field + ": property 'unique' needs radius = \"r\"");
+          k.radius = decimal(*(*c)["radius"].node(), field + " radius");
+          if (arith::from_decimal<arith::Id>(k.radius).lower() <= 0)
+            throw input_error(field + " radius: '" + k.radius + "' (rule: > 0)");
+          const std::string about = (*c)["about"].value_or(std::string("solution"));
+          if (about != "solution" && about != "candidate")
+            throw input_error(field + " about: '" + about + "' (rule: \"solution\" or \"candidate\")");
+          k.about_candidate = about == "candidate";
+          k.text = "unique in the ball of radius " + k.radius + " about the " + about;
+        } else if (prop == "solutions found") {
+          k.kind = Claim::Kind::solutions;
+          const bool ex = c->contains("exactly"), al = c->contains("at_least");
+          if (ex == al) throw input_error(field + ": property 'solutions found' needs exactly = N or at_least = N");
+          const auto v = (*c)[ex ? "exactly" : "at_least"].value<std::int64_t>();
+          if (!v || *v < 0 || *v > 100)
+            throw input_error(field + std::string(ex ? " exactly" : " at_least") + ": must be an integer in 0..100");
+          k.count = static_cast<int>(*v);
+          k.exactly = ex;
+          k.text = std::string(ex ? "exactly " : "at least ") + std::to_string(k.count) + " solutions found";
+        } else {
+          k.kind = Claim::Kind::sign;
+          parse_sign(prop, field + " property", k, *c);
+        }
+      } else {
+        throw input_error(field + ": needs 'quantity' (a value key) or 'property'");
+      }
+      f.claims.push_back(k);
+    }
+  }
+  if (f.claims.empty()) throw input_error(where + ": no [[claim]] tables (rule: at least one claim)");
+  return f;
+}
+
+}  // namespace porecert::model
