@@ -17,6 +17,7 @@ Action register_greens(CLI::App& app);
 Action register_recheck(CLI::App& app);
 Action register_branches(CLI::App& app);
 Action register_fold(CLI::App& app);
+Action register_sweep(CLI::App& app);
 
 // Bad user input: message names the option/field, the value and the rule; exit status 2.
 using input_error = model::input_error;

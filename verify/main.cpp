@@ -21,6 +21,7 @@ int main(int argc, char** argv) {
   add(porecert::cli::register_recheck);
   add(porecert::cli::register_branches);
   add(porecert::cli::register_fold);
+  add(porecert::cli::register_sweep);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

@@ -24,6 +24,9 @@ struct CertifyRequest {
   // With automatic precision: when a value enclosure is relatively wider than this after a double
   // proof, the proof is redone about an MPFR-refined candidate (docs/method.md §M5).
   double target_rel_width = 1e-12;
+  // Type I: when the certified label is not I, search all branches for type I (costly; the sweep
+  // turns it off and bisects instead).
+  bool search_other_labels = true;
 };
 
 struct Enclosure {
