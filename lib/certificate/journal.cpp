@@ -76,6 +76,7 @@ Journal::Journal(const std::string& path, const json& header, bool resume, std::
         records->push_back(std::move(j));
       }
       keep = next;
+      pos = next;
     }
   }
   fd_ = ::open(path.c_str(), O_WRONLY | O_CREAT, 0644);

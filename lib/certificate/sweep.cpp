@@ -301,7 +301,7 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
       msg +=
           " while approaching the fold of types II/III (R* near 12.165, docs/fold.md; below R* these branches do "
           "not exist)";
-    msg += last_R.empty() ? "; no box was certified" : "; last certified R = " + last_R;
+    msg += last_R.empty() ? "; last certified R: none (no box was certified)" : "; last certified R = " + last_R;
     doc["stopped"] = {{"last_certified_R", last_R.empty() ? json(nullptr) : json(last_R)}, {"message", msg}};
   }
   doc["claim"] =
