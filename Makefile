@@ -20,7 +20,8 @@ setup:
 	fi
 
 configure: setup
-	cmake -S . -B $(BUILD) -DCMAKE_BUILD_TYPE=Release
+	cmake -S . -B $(BUILD) -DCMAKE_BUILD_TYPE=Release \
+	  -DPORECERT_MPI=$$(dpkg-query -W -f='$${Status}' libopenmpi-dev 2>/dev/null | grep -q 'install ok installed' && echo ON || echo OFF)
 
 build: configure
 	cmake --build $(BUILD) -j $(JOBS)

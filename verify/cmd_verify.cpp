@@ -13,6 +13,7 @@
 #include "proof/direct.hpp"
 #include "proof/direct_candidate.hpp"
 #include "proof/fold.hpp"
+#include "proof/labelled.hpp"
 
 namespace porecert::cli {
 
@@ -181,27 +182,8 @@ int run_verify(const VerifyOptions& v) {
   prob.R_hi = req.R_hi;
   prob.branch = req.start ? "" : req.branch;
 
-  proof::CertifyOutcome o;
-  if (v.method == "reduced" || (req.branch == "I" && !req.start)) {
-    o = proof::certify_berman(req);
-  } else if (req.branch == "II" || req.branch == "III") {
-    // Types II and III: the branch search, then the solution whose certified label matches.
-    const auto all = proof::certify_branches(req);
-    bool found = false;
-    for (const auto& s : all.solutions)
-      if (s.certified && s.structure.label == req.branch) {
-        o = s;
-        found = true;
-        break;
-      }
-    if (!found) {
-      o.failure = "no certified solution with the structure of type " + req.branch +
-                  " was found in the searched region (" + all.region + ")";
-      o.log = all.log;
-    }
-  } else {
-    o = proof::certify_berman(req);
-  }
+  // Types II and III: the branch search, then the solution whose certified label matches.
+  const proof::CertifyOutcome o = proof::certify_labelled(req);
   nlohmann::json cert = certificate::to_json(prob, o);
   std::string c3_line;
   {  // C3-ball uniqueness: direct contraction about the Newton candidate (lib/proof/direct_candidate.hpp, D15-D25).

@@ -20,6 +20,7 @@ Action register_fold(CLI::App& app);
 Action register_report(CLI::App& app);
 Action register_import(CLI::App& app);
 Action register_check(CLI::App& app);
+Action register_sweep(CLI::App& app);
 
 // Bad user input: message names the option/field, the value and the rule; exit status 2.
 using input_error = model::input_error;

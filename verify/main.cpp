@@ -24,6 +24,7 @@ int main(int argc, char** argv) {
   add(porecert::cli::register_report);
   add(porecert::cli::register_import);
   add(porecert::cli::register_check);
+  add(porecert::cli::register_sweep);
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

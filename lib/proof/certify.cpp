@@ -276,7 +276,8 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     return out;
   }
   CertifyOutcome out = certify_from(req, cand.x);
-  if (!req.start && req.branch == "I" && out.certified && spec.is_berman() && out.structure.label != "I") {
+  if (!req.start && req.branch == "I" && out.certified && spec.is_berman() && out.structure.label != "I" &&
+      req.search_other_labels) {
     // Continuation can jump to a nearby branch where branches crowd (types I and II for large
     // suction): the certified structure says so; then look for type I with the branch search.
     log.push_back("continuation ended on a solution of certified type " + out.structure.label +

@@ -30,6 +30,9 @@ struct CertifyRequest {
   // "newton" or "reduced".
   std::string method = "auto";
   model::ModelSpec model;  // default: Berman's half-channel problem (docs/models.md)
+  // Type I: when the certified label is not I, search all branches for type I (costly; the sweep
+  // turns it off and bisects instead).
+  bool search_other_labels = true;
 };
 
 struct Enclosure {

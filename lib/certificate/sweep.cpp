@@ -1,0 +1,358 @@
+#include "certificate/sweep.hpp"
+
+#include <cmath>
+#include <exception>
+#include <limits>
+#include <mutex>
+#include <stdexcept>
+#include <thread>
+
+#include "certificate/certificate.hpp"
+#include "proof/labelled.hpp"
+#include "proof/sweep.hpp"
+
+namespace porecert::certificate::sweep {
+
+using nlohmann::json;
+
+namespace {
+
+bool fold_branch(const Params& p) { return p.branch == "II" || p.branch == "III"; }
+
+json box_R(const std::string& lo, const std::string& hi) { return json::array({lo, hi}); }
+
+// Proves one box; the record is what the journal stores and the output lists.
+json prove_box(const Params& p, const std::string& lo, const std::string& hi) {
+  proof::CertifyRequest req;
+  req.R_lo = lo;
+  req.R_hi = hi;
+  req.branch = p.branch;
+  req.max_modes = p.max_modes;
+  req.max_precision_bits = p.max_precision_bits;
+  // Over a box the value enclosures are as wide as the box: no MPFR re-proof for width (M5).
+  req.target_rel_width = std::numeric_limits<double>::infinity();
+  req.search_other_labels = false;  // an unclassified structure over a wide box: bisect instead
+  const proof::CertifyOutcome o = proof::certify_labelled(req);
+  json cert = to_json(Problem{lo, hi, p.branch, ""}, o);
+  cert.erase("seconds");  // the only field that differs between two runs of the same proof
+  json r;
+  r["R"] = box_R(lo, hi);
+  const bool label_ok = o.certified && o.structure.label == p.branch;
+  r["status"] = label_ok ? "certified" : "not certified";
+  if (label_ok) {
+    r["values"] = cert["values"];
+    r["existence_radius"] = cert["existence_radius"];
+    r["uniqueness_radius"] = cert["uniqueness_radius"];
+    r["certificate"] = std::move(cert);
+  } else {
+    r["values"] = json::object();
+    r["failure"] = o.certified ? "the proof holds but the certified structure label is '" + o.structure.label +
+                                     "', not type " + p.branch
+                               : o.failure;
+    r["bounds"] = cert["bounds"];
+  }
+  return r;
+}
+
+}  // namespace
+
+json identity(const Params& p) {
+  return {{"format", "porecert-sweep-journal"},
+          {"version", 1},
+          {"R", box_R(p.R_lo, p.R_hi)},
+          {"branch", p.branch},
+          {"width", p.width},
+          {"min_width", p.min_width},
+          {"stop_at_gap", p.stop_at_gap || fold_branch(p)},
+          {"max_modes", p.max_modes},
+          {"max_precision_bits", p.max_precision_bits},
+          {"software", "porecert 0.1.0"}};
+}
+
+Plan make_plan(const Params& p) {
+  const double total = proof::sweep::approx_width(p.R_lo, p.R_hi);
+  const double w = arith::mid_double(arith::from_decimal<arith::Id>(p.width));
+  if (!(total > 0) || !(w > 0)) throw std::invalid_argument("empty range or width");
+  const double n = std::ceil(total / w * (1 - 1e-12));
+  if (n > 1e7) throw std::invalid_argument("more than 10^7 initial boxes");
+  Plan plan;
+  plan.points = proof::sweep::cut_points(p.R_lo, p.R_hi, std::max(1L, static_cast<long>(n)));
+  plan.descending = fold_branch(p);
+  const int m = static_cast<int>(plan.points.size()) - 1;
+  for (int k = 0; k < m; ++k) plan.order.push_back(plan.descending ? m - 1 - k : k);
+  return plan;
+}
+
+Known index_records(const std::vector<json>& records) {
+  Known k;
+  for (const auto& r : records) {
+    if (!r.is_object() || !r.contains("R") || !r["R"].is_array() || r["R"].size() != 2 || !r["R"][0].is_string() ||
+        !r["R"][1].is_string() || !r.contains("status") || !r["status"].is_string())
+      throw format_error("journal: a record has no \"R\": [lo, hi] or no \"status\": " + r.dump().substr(0, 120));
+    k[{r["R"][0].get<std::string>(), r["R"][1].get<std::string>()}] = r;
+  }
+  return k;
+}
+
+std::vector<json> settle_box(const Params& p, const std::string& lo, const std::string& hi, bool descending,
+                             const Known& known, const std::function<void(const json&)>& emit) {
+  const double min_w = arith::mid_double(arith::from_decimal<arith::Id>(p.min_width));
+  std::vector<json> leaves;  // in processing order
+  bool gap = false;
+  std::function<void(const std::string&, const std::string&)> settle = [&](const std::string& a, const std::string& b) {
+    if (gap) return;
+    json rec;
+    const auto it = known.find({a, b});
+    const std::string mid = proof::sweep::split_point(a, b);
+    const bool can_split = !mid.empty() && proof::sweep::approx_width(a, b) > min_w;
+    if (it != known.end()) {
+      rec = it->second;
+    } else {
+      rec = prove_box(p, a, b);
+      if (rec["status"] != "certified" && can_split) {
+        rec = {{"R", box_R(a, b)}, {"status", "split"}, {"failure", rec.value("failure", "")}};
+      }
+      emit(rec);
+    }
+    const std::string st = rec["status"].get<std::string>();
+    if (st == "split") {
+      if (mid.empty()) throw std::runtime_error("journal: box [" + a + ", " + b + "] marked split cannot be split");
+      if (descending) {
+        settle(mid, b);
+        settle(a, mid);
+      } else {
+        settle(a, mid);
+        settle(mid, b);
+      }
+      return;
+    }
+    leaves.push_back(rec);
+    if (st != "certified") {
+      gap = true;
+      const std::string &from = descending ? lo : b, &to = descending ? a : hi;
+      if (from != to)
+        leaves.push_back({{"R", box_R(from, to)},
+                          {"status", "not attempted"},
+                          {"values", json::object()},
+                          {"failure", "not attempted after the failure at minimum width next to it"}});
+    }
+  };
+  settle(lo, hi);
+  if (descending) std::reverse(leaves.begin(), leaves.end());
+  return leaves;
+}
+
+bool has_gap(const std::vector<json>& leaves) {
+  for (const auto& l : leaves)
+    if (l["status"] != "certified") return true;
+  return false;
+}
+
+void run_positions(const Params& p, const Plan& plan, const std::vector<int>& positions, int jobs, const Known& known,
+                   const std::function<void(const json&)>& emit,
+                   const std::function<void(int, const std::optional<std::vector<json>>&)>& done) {
+  const bool stop = p.stop_at_gap || fold_branch(p);
+  std::atomic<std::size_t> next{0};
+  std::atomic<int> first_gap{std::numeric_limits<int>::max()};
+  std::mutex mu;
+  std::exception_ptr error;
+  auto worker = [&] {
+    for (;;) {
+      const std::size_t k = next.fetch_add(1);
+      if (k >= positions.size()) return;
+      const int pos = positions[k];
+      try {
+        if (stop && pos > first_gap.load()) {
+          std::lock_guard<std::mutex> lock(mu);
+          done(pos, std::nullopt);
+          continue;
+        }
+        const int box = plan.order[pos];
+        auto leaves = settle_box(p, plan.points[box], plan.points[box + 1], plan.descending, known, emit);
+        if (stop && has_gap(leaves)) {
+          int cur = first_gap.load();
+          while (pos < cur && !first_gap.compare_exchange_weak(cur, pos)) {
+          }
+        }
+        std::lock_guard<std::mutex> lock(mu);
+        done(pos, leaves);
+      } catch (...) {
+        std::lock_guard<std::mutex> lock(mu);
+        if (!error) error = std::current_exception();
+        next = positions.size();
+        return;
+      }
+    }
+  };
+  std::vector<std::thread> pool;
+  for (int t = 1; t < std::max(1, jobs); ++t) pool.emplace_back(worker);
+  worker();
+  for (auto& t : pool) t.join();
+  if (error) std::rethrow_exception(error);
+}
+
+json assemble(const Params& p, const Plan& plan, const std::vector<std::optional<std::vector<json>>>& by_position) {
+  const bool stop = p.stop_at_gap || fold_branch(p);
+  const int m = static_cast<int>(plan.order.size());
+  // Positions kept: all, or up to the first one with a gap when the sweep stops there (S4).
+  int last = m - 1;
+  if (stop)
+    for (int k = 0; k < m; ++k) {
+      if (!by_position[k]) throw std::runtime_error("sweep: position " + std::to_string(k) + " skipped before a gap");
+      if (has_gap(*by_position[k])) {
+        last = k;
+        break;
+      }
+    }
+  std::vector<const std::vector<json>*> by_box(m, nullptr);
+  for (int k = 0; k <= last; ++k) {
+    if (!by_position[k]) throw std::runtime_error("sweep: box at position " + std::to_string(k) + " missing");
+    by_box[plan.order[k]] = &*by_position[k];
+  }
+  json boxes = json::array();
+  bool pending = false;  // a run of boxes never reached (stopped sweep)
+  std::string pend_lo, pend_hi;
+  auto flush = [&] {
+    if (!pending) return;
+    boxes.push_back({{"R", box_R(pend_lo, pend_hi)},
+                     {"status", "not attempted"},
+                     {"values", json::object()},
+                     {"failure", "the sweep stopped at the gap next to it"}});
+    pending = false;
+  };
+  for (int b = 0; b < m; ++b) {
+    if (!by_box[b]) {
+      if (!pending) pend_lo = plan.points[b];
+      pend_hi = plan.points[b + 1];
+      pending = true;
+      continue;
+    }
+    flush();
+    for (const auto& l : *by_box[b]) boxes.push_back(l);
+  }
+  flush();
+
+  json doc;
+  doc["format"] = kFormat;
+  doc["format_version"] = 1;
+  doc["R"] = box_R(p.R_lo, p.R_hi);
+  doc["branch"] = p.branch;
+  doc["parameters"] = identity(p);
+  doc["parameters"].erase("format");
+  doc["parameters"].erase("version");
+  // Gluing of neighbours (S3) and gaps.
+  json joints = json::array(), gaps = json::array();
+  bool covered = true, all_glued = true;
+  std::size_t n_cert = 0;
+  for (std::size_t i = 0; i < boxes.size(); ++i) {
+    const bool ci = boxes[i]["status"] == "certified";
+    n_cert += ci;
+    if (!ci) {
+      covered = false;
+      if (!gaps.empty() && gaps.back()[1] == boxes[i]["R"][0])
+        gaps.back()[1] = boxes[i]["R"][1];
+      else
+        gaps.push_back(boxes[i]["R"]);
+    }
+    if (i + 1 == boxes.size()) break;
+    json j{{"R", boxes[i]["R"][1]}, {"boxes", json::array({i, i + 1})}};
+    const bool cj = boxes[i + 1]["status"] == "certified";
+    const auto method = [](const json& b) {
+      return b["certificate"].value("method", std::string("newton-kantorovich"));
+    };
+    if (ci && cj && (method(boxes[i]) == "reduced-ivp" || method(boxes[i + 1]) == "reduced-ivp")) {
+      // Reduced method (docs/method.md (S10)): at the shared R each box's solution has s in its bracket
+      // and is the only one of its chart with s in its set S; a bracket inside the other's S glues.
+      const json& ca = boxes[i]["certificate"]["candidate"];
+      const json& cb = boxes[i + 1]["certificate"]["candidate"];
+      bool g = method(boxes[i]) == method(boxes[i + 1]) && ca.value("eps", 0) == cb.value("eps", 0) &&
+               ca.value("nth_zero", 0) == cb.value("nth_zero", 0);
+      if (g) {
+        arith::PrecisionScope exact(1024);
+        const auto v = [](const json& c, const char* k) {
+          return arith::from_decimal<arith::Im>(c[k].get<std::string>());
+        };
+        const auto inside = [&](const json& x, const json& y) {  // bracket of x within S of y
+          return v(y, "S_lo").upper() <= v(x, "s_lo").lower() && v(x, "s_hi").upper() <= v(y, "S_hi").lower();
+        };
+        g = inside(ca, cb) || inside(cb, ca);
+      }
+      j["glued"] = g ? "glued" : "not glued";
+      if (!g) j["reason"] = "neither box's s bracket lies in the other's uniqueness set S (docs/sweep.md (S3))";
+    } else if (ci && cj) {
+      const auto hex = [](const json& b) {
+        return b["certificate"]["candidate"]["coefficients_hex"].get<std::vector<std::string>>();
+      };
+      const double d = proof::sweep::candidate_distance_up(hex(boxes[i]), hex(boxes[i + 1]));
+      const arith::Tri g = proof::sweep::glued(
+          d, boxes[i]["existence_radius"].get<std::string>(), boxes[i]["uniqueness_radius"].get<std::string>(),
+          boxes[i + 1]["existence_radius"].get<std::string>(), boxes[i + 1]["uniqueness_radius"].get<std::string>());
+      j["candidate_distance"] = arith::decimal_upper(arith::Id(d), 17);
+      j["glued"] = g == arith::Tri::yes ? "glued" : "not glued";
+      if (g != arith::Tri::yes)
+        j["reason"] = "distance + existence radius of one box is not below the uniqueness radius of the other (S3)";
+    } else {
+      j["glued"] = "not glued";
+      j["reason"] = "a box on one side is not certified";
+    }
+    all_glued = all_glued && j["glued"] == "glued";
+    joints.push_back(j);
+  }
+  doc["boxes"] = boxes;
+  doc["joints"] = joints;
+  doc["covered"] = covered;
+  doc["gaps"] = gaps;
+  doc["one_branch"] = covered && all_glued;
+  doc["counts"] = {{"boxes", boxes.size()}, {"certified", n_cert}, {"initial_boxes", m}};
+  if (stop && !covered) {
+    // Last certified R: the end of the certified run from where the sweep started.
+    std::string last_R;
+    if (plan.descending) {
+      for (std::size_t i = boxes.size(); i-- > 0;) {
+        if (boxes[i]["status"] != "certified") break;
+        last_R = boxes[i]["R"][0].get<std::string>();
+      }
+    } else {
+      for (const auto& b : boxes) {
+        if (b["status"] != "certified") break;
+        last_R = b["R"][1].get<std::string>();
+      }
+    }
+    std::string msg = "sweep of type " + p.branch + " stopped at its first gap";
+    if (fold_branch(p))
+      msg +=
+          " while approaching the fold of types II/III (R* near 12.165, docs/fold.md; below R* these branches do "
+          "not exist)";
+    msg += last_R.empty() ? "; last certified R: none (no box was certified)" : "; last certified R = " + last_R;
+    doc["stopped"] = {{"last_certified_R", last_R.empty() ? json(nullptr) : json(last_R)}, {"message", msg}};
+  }
+  doc["claim"] =
+      "each certified box: for every R in it, a solution of the stated type exists in the ball of radius "
+      "existence_radius about its candidate and is the only one in the open ball of radius uniqueness_radius "
+      "(space of docs/method.md M3); 'glued' joints: the two boxes' solutions coincide at the shared R (docs/sweep.md "
+      "S3)";
+  doc["caution"] = kCaution;
+  return doc;
+}
+
+std::vector<std::string> summary_lines(const json& doc) {
+  std::vector<std::string> out;
+  const auto& c = doc["counts"];
+  std::size_t glued = 0;
+  for (const auto& j : doc["joints"]) glued += j["glued"] == "glued";
+  out.push_back("porecert sweep: branch " + doc["branch"].get<std::string>() +
+                ", R = " + doc["R"][0].get<std::string>() + " .. " + doc["R"][1].get<std::string>());
+  out.push_back("  boxes: " + std::to_string(c["certified"].get<std::size_t>()) + " certified of " +
+                std::to_string(c["boxes"].get<std::size_t>()) + " (from " +
+                std::to_string(c["initial_boxes"].get<int>()) + " initial boxes)");
+  out.push_back("  joints: " + std::to_string(glued) + " glued of " + std::to_string(doc["joints"].size()) +
+                (doc["one_branch"].get<bool>() ? " (one branch over the whole range)" : ""));
+  out.push_back(std::string("  covered: ") + (doc["covered"].get<bool>() ? "yes, the whole range" : "NO"));
+  for (const auto& g : doc["gaps"])
+    out.push_back("  gap: [" + g[0].get<std::string>() + ", " + g[1].get<std::string>() + "] not certified");
+  if (doc.contains("stopped")) out.push_back("  STOPPED: " + doc["stopped"]["message"].get<std::string>());
+  out.push_back("  " + std::string(kCaution));
+  return out;
+}
+
+}  // namespace porecert::certificate::sweep

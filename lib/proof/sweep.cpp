@@ -1,0 +1,95 @@
+#include "proof/sweep.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <limits>
+#include <stdexcept>
+
+namespace porecert::proof::sweep {
+
+using arith::Id;
+using arith::Im;
+
+namespace {
+// The decimal text of v with `decimals` digits after the point.
+std::string fixed(double v, int decimals) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
+  std::string s = buf;
+  if (s.find('.') != std::string::npos) {
+    while (s.back() == '0') s.pop_back();
+    if (s.back() == '.') s.pop_back();
+  }
+  if (s == "-0") s = "0";
+  return s;
+}
+// Certainly a < b as real numbers (both decimal strings).
+bool certainly_less(const std::string& a, const std::string& b) {
+  return arith::tri_less(arith::from_decimal<Id>(a), arith::from_decimal<Id>(b)) == arith::Tri::yes;
+}
+}  // namespace
+
+double approx_width(const std::string& lo, const std::string& hi) {
+  return arith::mid_double(arith::from_decimal<Id>(hi)) - arith::mid_double(arith::from_decimal<Id>(lo));
+}
+
+std::vector<std::string> cut_points(const std::string& lo, const std::string& hi, long n) {
+  if (n < 1) throw std::invalid_argument("cut_points: n must be >= 1");
+  const double a = arith::mid_double(arith::from_decimal<Id>(lo)), b = arith::mid_double(arith::from_decimal<Id>(hi));
+  const double step = (b - a) / static_cast<double>(n);
+  if (!(step > 0)) throw std::invalid_argument("range [" + lo + ", " + hi + "] is empty or too narrow");
+  // A resolution of step/1000 keeps the points short and leaves every box within 0.2 % of step.
+  const int decimals = std::max(0, std::min(30, static_cast<int>(std::ceil(-std::log10(step / 1000)))));
+  std::vector<std::string> p{lo};
+  for (long k = 1; k < n; ++k) {
+    std::string s = fixed(a + static_cast<double>(k) * step, decimals);
+    if (!certainly_less(p.back(), s)) {
+      char buf[40];
+      std::snprintf(buf, sizeof buf, "%.17g", a + static_cast<double>(k) * step);
+      s = buf;
+      if (!certainly_less(p.back(), s))
+        throw std::invalid_argument("range [" + lo + ", " + hi + "] is too narrow for " + std::to_string(n) +
+                                    " boxes in double precision");
+    }
+    p.push_back(s);
+  }
+  if (!certainly_less(p.back(), hi))
+    throw std::invalid_argument("range [" + lo + ", " + hi + "] is too narrow for " + std::to_string(n) +
+                                " boxes in double precision");
+  p.push_back(hi);
+  return p;
+}
+
+std::string split_point(const std::string& lo, const std::string& hi) {
+  try {
+    return cut_points(lo, hi, 2)[1];
+  } catch (const std::invalid_argument&) {
+    return "";
+  }
+}
+
+double candidate_distance_up(const std::vector<std::string>& a, const std::vector<std::string>& b) {
+  arith::PrecisionScope scope(2200);
+  Im sum(0);
+  const std::size_t n = std::max(a.size(), b.size());
+  for (std::size_t i = 0; i < n; ++i) {
+    const Im x = i < a.size() ? arith::from_decimal<Im>(a[i]) : Im(0);
+    const Im y = i < b.size() ? arith::from_decimal<Im>(b[i]) : Im(0);
+    sum = sum + boost::numeric::abs(x - y);
+  }
+  return arith::upper_up(sum);
+}
+
+arith::Tri glued(double dist_up, const std::string& exist_a, const std::string& uniq_a, const std::string& exist_b,
+                 const std::string& uniq_b) {
+  const auto uniq_down = [](const std::string& s) {
+    return s == "inf" ? std::numeric_limits<double>::infinity() : arith::from_decimal<Id>(s).lower();
+  };
+  const auto reach_up = [&](const std::string& e) {
+    return (Id(dist_up) + Id(arith::from_decimal<Id>(e).upper())).upper();
+  };
+  if (reach_up(exist_b) < uniq_down(uniq_a) || reach_up(exist_a) < uniq_down(uniq_b)) return arith::Tri::yes;
+  return arith::Tri::unsure;
+}
+
+}  // namespace porecert::proof::sweep

@@ -1,0 +1,37 @@
+// Proof-side pieces of a sweep over a range of R (docs/sweep.md): cutting [LO, HI] into boxes
+// that share their endpoints exactly, and the gluing test between neighbouring boxes (S3).
+#pragma once
+#include <string>
+#include <vector>
+
+#include "arith/interval.hpp"
+
+namespace porecert::proof::sweep {
+
+// n boxes covering [lo, hi]: n + 1 decimal strings, the first lo and the last hi as given, the
+// others short decimals (rounded to a resolution of a thousandth of a box) between them. Every
+// point is certainly (as a real number) above the previous one; throws std::invalid_argument when
+// that cannot be had (the range is too narrow for n boxes).
+std::vector<std::string> cut_points(const std::string& lo, const std::string& hi, long n);
+
+// A decimal strictly inside (lo, hi) near the midpoint (cut_points with n = 2), or "" when the box
+// is too narrow to split in double precision.
+std::string split_point(const std::string& lo, const std::string& hi);
+
+// Approximate width hi - lo in double (used only to decide when to stop bisecting).
+double approx_width(const std::string& lo, const std::string& hi);
+
+// Upper bound of ‖x̄a − x̄b‖ in the space of the certificate (docs/method.md §M3): |Δf'(0)| + |ΔK|
+// + Σ_k |Δu_k|, the shorter candidate padded with zeros. Candidates are exact hex strings in the
+// layout [f'(0), K, u_0, ...]; computed in MPFR at 2200 bits (every stored candidate, at most 1024
+// bits, is exact there), summed with upward rounding. Throws std::invalid_argument on a
+// malformed string.
+double candidate_distance_up(const std::vector<std::string>& a, const std::vector<std::string>& b);
+
+// (S3): yes when dist + r_exist(b) < r_uniq(a) or dist + r_exist(a) < r_uniq(b), each sum rounded
+// up and r_uniq rounded down (radii as the certificate writes them; "inf" allowed for r_uniq);
+// unsure otherwise (never no: a failed test proves nothing).
+arith::Tri glued(double dist_up, const std::string& exist_a, const std::string& uniq_a, const std::string& exist_b,
+                 const std::string& uniq_b);
+
+}  // namespace porecert::proof::sweep
