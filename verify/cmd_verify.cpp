@@ -126,6 +126,7 @@ int run_verify(const VerifyOptions& v) {
     throw input_error("--modes: " + std::to_string(req.modes) + " is outside 8..4000");
   if (v.method != "newton" && v.method != "direct")
     throw input_error("--method: '" + v.method + "' is not a method (rule: newton or direct)");
+  if (!json_path.empty()) certificate::check_output(json_path);  // before the run, not after it
   if (v.method == "direct") return run_direct(req, json_path);
   prob.R_lo = req.R_lo;
   prob.R_hi = req.R_hi;
@@ -250,7 +251,12 @@ Action register_recheck(CLI::App& app) {
     } catch (const certificate::format_error& e) {
       throw input_error(e.what());
     }
-    const auto o = proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+    proof::CertifyOutcome o;
+    try {
+      o = proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+    } catch (const std::invalid_argument& e) {  // a coefficient not exact at the stated precision
+      throw input_error("certificate '" + *path + "': " + e.what());
+    }
     std::printf("porecert recheck: %s (R = [%s, %s], %d modes, %d bits)\n", path->c_str(), s.problem.R_lo.c_str(),
                 s.problem.R_hi.c_str(), o.modes, o.precision_bits);
     if (s.status != "certified") {

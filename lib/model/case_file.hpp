@@ -4,6 +4,7 @@
 #include <optional>
 #include <stdexcept>
 #include <string>
+#include <string_view>
 #include <utility>
 
 namespace porecert::model {
@@ -22,8 +23,10 @@ struct CaseSettings {
   std::optional<std::string> certificate;  // output path (relative to the working directory)
 };
 
-// Parses a case file; throws input_error naming the field.
+// Parses a case file; throws input_error naming the field (and nothing else: docs/soundness.md).
 CaseSettings read_case_file(const std::string& path);
+// The same from the file's text; source names it in messages (fuzz target tests/fuzz/fuzz_case_file.cpp).
+CaseSettings read_case_text(std::string_view text, const std::string& source);
 
 // "VALUE" or "LO:HI" → [lo, hi], checked: finite decimals, lo ≤ hi, |R| ≤ 1e5.
 std::pair<std::string, std::string> parse_R(const std::string& field, const std::string& text);

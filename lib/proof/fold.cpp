@@ -7,6 +7,7 @@
 #include <limits>
 #include <sstream>
 
+#include "arith/fp_env.hpp"
 #include "arith/midrad.hpp"
 #include "candidate/fold_candidate.hpp"
 #include "proof/radii.hpp"
@@ -58,6 +59,7 @@ std::array<double, 3> lambdas() {
 
 template <arith::Interval I>
 FoldResult<I> fold_verify(const std::vector<I>& xbar) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const int N = fs::modes_of(xbar);
   if (N < 8 || static_cast<int>(xbar.size()) != fs::kScalars + 2 * N)
     throw std::invalid_argument("fold candidate needs 4 scalars and two series of at least 8 modes");
@@ -228,6 +230,7 @@ void take(FoldOutcome& o, const FoldResult<I>& r) {
 }  // namespace
 
 FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   FoldOutcome out;
   const candidate::FoldCandidate cand = candidate::fold_candidate(modes);
@@ -267,6 +270,7 @@ FoldOutcome certify_fold(double target_width, int precision_bits, int modes) {
 }
 
 FoldOutcome recheck_fold(const std::vector<std::string>& hex, int precision_bits) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   FoldOutcome out;
   if (hex.size() < static_cast<std::size_t>(fs::kScalars) + 16 || (hex.size() - fs::kScalars) % 2 != 0)

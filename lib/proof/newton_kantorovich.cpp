@@ -6,6 +6,7 @@
 #include <sstream>
 #include <stdexcept>
 
+#include "arith/fp_env.hpp"
 #include "arith/midrad.hpp"
 #include "model/operator.hpp"
 #include "proof/radii.hpp"
@@ -92,7 +93,6 @@ Id to_id(const I& x) {
   return arith::to_id(x);
 }
 
-
 // Functionals of tail modes through which the finite block sees them (docs/method.md (M3.9)):
 // kind (m, i ≥ 0): coefficient i of the low part of J^m T_l; kind (m, −1): (J^m T_l)(1).
 struct TailFunctionals {
@@ -159,6 +159,7 @@ double tail_estimate(const model::Model<Id>& m, const std::vector<Id>& xbar, lon
 
 template <arith::Interval I>
 NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   if (!m.well_formed()) throw std::invalid_argument("model is not square (rows != scalar unknowns)");
   const int ns = m.n_scalars();
   const int N = static_cast<int>(xbar.size()) - ns;
