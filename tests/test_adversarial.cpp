@@ -14,6 +14,7 @@
 #include <cstdio>
 #include <cstdlib>
 #include <fstream>
+#include <limits>
 #include <map>
 #include <nlohmann/json.hpp>
 #include <random>
@@ -177,9 +178,14 @@ TEST_CASE("adversarial candidates: perturbed, cut, wrong R, interval R, tiny and
         prove_and_check("huge R", seed, R_of(huge[pick(6)]), x, {}, tally["huge |R|"]);
         break;
       }
-      case 5: {  // structured damage: one sign flipped, one coefficient zeroed, all scaled, swapped scalars
+      case 5: {  // structured damage: a sign flipped, an entry zeroed or huge or subnormal, all scaled, scalars swapped
         const std::size_t k = pick(x.size());
-        switch (pick(4)) {
+        switch (pick(5)) {
+          case 4: {  // an entry overflowing the arithmetic, or subnormal
+            const double e[4] = {1e300, -std::numeric_limits<double>::max(), 4.9e-324, -1e-310};
+            x[k] = e[pick(4)];
+            break;
+          }
           case 0:
             x[k] = -x[k];
             break;
@@ -309,13 +315,13 @@ TEST_CASE("tampered certificates: recheck rejects, refuses, or confirms only wha
     nlohmann::json j = j0;
     std::string text;
     switch (i % 8) {
-      case 0: {  // one hex digit of one coefficient changed
+      case 0: {  // one hex digit of one coefficient changed, or the coefficient made huge
         auto& c = j["candidate"]["coefficients_hex"];
         const std::size_t k = pick(c.size());
         std::string h = c[k];
         const std::size_t at = h.find('.') + 1 + pick(8);
         if (at < h.size() && std::isxdigit(static_cast<unsigned char>(h[at]))) h[at] = h[at] == '7' ? '8' : '7';
-        c[k] = h;
+        c[k] = pick(3) == 0 ? std::string(pick(2) ? "0x1p+1020" : "-0x1.fffffffffffffp+1023") : h;
         break;
       }
       case 1:  // R moved to another grid value
