@@ -3,7 +3,7 @@ BUILD ?= build
 JOBS ?= 2
 PACKAGES := $(shell grep -v '^\#' .ci/packages)
 
-.PHONY: setup configure build demo test bench clean format
+.PHONY: setup configure build demo test test-asan fuzz-smoke fuzz-long adversarial-long bench clean format
 
 setup:
 	@missing=""; for p in $(PACKAGES); do \
@@ -33,6 +33,33 @@ demo: configure
 
 test: build
 	cd $(BUILD) && ctest --output-on-failure -j $(JOBS)
+	$(MAKE) --no-print-directory test-asan fuzz-smoke
+
+# Soundness campaign (docs/soundness.md): the whole suite under ASan+UBSan at a reduced
+# PORECERT_TEST_SCALE, and a short libFuzzer run of every reader (clang, from .ci/packages).
+ASAN_BUILD ?= build-asan
+FUZZ_BUILD ?= build-fuzz
+ASAN_SCALE ?= 0.1
+FUZZ_SECONDS ?= 10
+test-asan: setup
+	cmake -S . -B $(ASAN_BUILD) -DCMAKE_BUILD_TYPE=Release -DPORECERT_SANITIZE=ON
+	cmake --build $(ASAN_BUILD) -j $(JOBS)
+	cd $(ASAN_BUILD) && ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1 \
+	  PORECERT_TEST_SCALE=$(ASAN_SCALE) ctest --output-on-failure -j $(JOBS)
+
+fuzz-smoke: setup
+	cmake -S . -B $(FUZZ_BUILD) -DCMAKE_BUILD_TYPE=RelWithDebInfo -DCMAKE_CXX_COMPILER=clang++ -DPORECERT_FUZZ=ON
+	cmake --build $(FUZZ_BUILD) -j $(JOBS) --target porecert_fuzzers
+	tests/fuzz/run.sh $(FUZZ_BUILD) smoke $(FUZZ_SECONDS)
+
+# The big runs of docs/soundness.md (not part of `make test`).
+fuzz-long: setup
+	cmake -S . -B $(FUZZ_BUILD) -DCMAKE_BUILD_TYPE=RelWithDebInfo -DCMAKE_CXX_COMPILER=clang++ -DPORECERT_FUZZ=ON
+	cmake --build $(FUZZ_BUILD) -j $(JOBS) --target porecert_fuzzers
+	tests/fuzz/run.sh $(FUZZ_BUILD) runs 1000000
+
+adversarial-long: build
+	cd $(BUILD) && PORECERT_TRIALS=100000 ./test_adversarial
 
 bench: configure
 	cmake --build $(BUILD) -j $(JOBS) --target porecert_bench
@@ -42,4 +69,4 @@ format:
 	find lib verify tests -name '*.hpp' -o -name '*.cpp' | xargs clang-format -i
 
 clean:
-	rm -rf $(BUILD)
+	rm -rf $(BUILD) $(ASAN_BUILD) $(FUZZ_BUILD)

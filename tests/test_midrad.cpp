@@ -210,7 +210,7 @@ TEST_CASE("midrad product encloses A·B' for every tested B' inside B (n = 3, 17
     }
   }
   CHECK(f.count == 0);
-  CHECK(products > 1000);
+  CHECK(products > std::min(1000L, scaled(1000)));  // not vacuous (fewer at a small PORECERT_TEST_SCALE)
 }
 
 TEST_CASE("midrad regressions: underflow, the self-test matrix, cancellation, denormal_min products") {

@@ -27,6 +27,7 @@ Action register_branches(CLI::App& app) {
     if (o->precision != 0 && (o->precision < 53 || o->precision > 4096))
       throw input_error("--precision: " + std::to_string(o->precision) + " is outside 53..4096 bits");
     req.precision_bits = o->precision;
+    if (!o->json.empty()) certificate::check_output(o->json);
     const auto b = proof::certify_branches(req);
     nlohmann::json j;
     j["format"] = "porecert-branches";

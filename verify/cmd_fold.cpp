@@ -39,6 +39,7 @@ Action register_fold(CLI::App& app) {
                         " must be 0 (automatic), 53, or 64..4096 bits");
     if (o->modes != 0 && (o->modes < 16 || o->modes > 2000))
       throw input_error("--modes: " + std::to_string(o->modes) + " must be 0 (automatic) or 16..2000");
+    if (!o->json.empty()) certificate::check_output(o->json);
     const proof::FoldOutcome f = sb ? proof::certify_symmetry_breaking(1e-10, o->precision, o->modes)
                                     : proof::certify_fold(1e-10, o->precision, o->modes);
     const bool quiet = o->json == "-";

@@ -104,6 +104,7 @@ Action register_greens(CLI::App& app) {
       std::snprintf(buf, sizeof buf, "%.3g", floor);
       throw input_error("--tol: '" + o->tol + "' must be in [" + buf + ", 1e-3] for --bits " + std::to_string(o->bits));
     }
+    if (!o->json.empty()) certificate::check_output(o->json);
     if (o->bits == 0) return run<arith::Id>(*o, tol, 17);
     arith::PrecisionScope scope(o->bits);
     return run<arith::Im>(*o, tol, static_cast<int>(o->bits * 0.30103) + 2);

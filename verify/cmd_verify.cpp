@@ -176,6 +176,7 @@ int run_verify(const VerifyOptions& v) {
   if (!req.model.is_berman() && (v.method == "direct" || v.method == "reduced"))
     throw input_error("--method: '" + v.method + "' is for Berman's model only (rule: with --model " + req.model.name +
                       " use newton or auto)");
+  if (!json_path.empty()) certificate::check_output(json_path);  // before the run, not after it
   if (v.method == "direct") return run_direct(req, json_path);
   req.method = v.method;
   prob.R_lo = req.R_lo;

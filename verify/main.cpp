@@ -28,6 +28,14 @@ int main(int argc, char** argv) {
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
+    bool known = false;
+    for (const CLI::App* sub : app.get_subcommands({})) known = known || (argc > 1 && sub->get_name() == argv[1]);
+    if (argc > 1 && argv[1][0] != '-' && !known) {
+      std::fprintf(stderr,
+                   "porecert: bad input: '%s' is not a subcommand (rule: verify, recheck, branches, fold or greens)\n",
+                   argv[1]);
+      return 2;
+    }
     const int rc = app.exit(e);
     return rc == 0 ? 0 : 2;
   }

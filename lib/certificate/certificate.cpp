@@ -5,6 +5,7 @@
 #include <fstream>
 #include <sstream>
 
+#include "arith/fp_env.hpp"
 #include "model/case_file.hpp"
 
 namespace porecert::certificate {
@@ -51,10 +52,10 @@ void reduced_into(json& j, const proof::ReducedResult& r) {
     pf.push_back(id_pair(r.profile_f[i]));
     pfp.push_back(id_pair(r.profile_fp[i]));
   }
-  j["profile"] = {{"eta", "i / " + std::to_string(proof::kProfileSamples) + ", i = 0.." +
-                              std::to_string(proof::kProfileSamples)},
-                  {"f", pf},
-                  {"f'", pfp}};
+  j["profile"] = {
+      {"eta", "i / " + std::to_string(proof::kProfileSamples) + ", i = 0.." + std::to_string(proof::kProfileSamples)},
+      {"f", pf},
+      {"f'", pfp}};
   j["candidate"] = {{"kind", "reduced shape parameter"},
                     {"eps", r.eps},
                     {"nth_zero", r.nth},
@@ -167,34 +168,67 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
 }
 
 namespace {
+// A short, non-recursive picture of a value for messages (a deep array must not recurse here).
+std::string shown(const json& v) {
+  if (v.is_array()) return "an array of " + std::to_string(v.size());
+  if (v.is_object()) return "an object";
+  std::string s = v.dump(-1, ' ', false, json::error_handler_t::replace);
+  return s.size() > 60 ? s.substr(0, 60) + "..." : s;
+}
 const json& need(const json& j, const char* key, json::value_t type, const char* rule) {
   if (!j.is_object() || !j.contains(key))
     throw format_error(std::string("certificate: key \"") + key + "\" is missing (" + rule + ")");
   const json& v = j.at(key);
   if (v.type() != type && !(type == json::value_t::number_integer && v.is_number_unsigned()))
-    throw format_error(std::string("certificate: key \"") + key + "\" has value " + v.dump().substr(0, 60) + " (" +
-                       rule + ")");
+    throw format_error(std::string("certificate: key \"") + key + "\" has value " + shown(v) + " (" + rule + ")");
   return v;
+}
+// An integer key in [lo, hi], checked before any narrowing or arithmetic.
+int int_in(const json& j, const char* key, std::int64_t lo, std::int64_t hi, const std::string& field) {
+  const json& v = need(j, key, json::value_t::number_integer, "an integer");
+  const bool fits = !v.is_number_unsigned() || v.get<std::uint64_t>() <= static_cast<std::uint64_t>(hi);
+  const std::int64_t x = fits ? v.get<std::int64_t>() : hi + 1;
+  if (x < lo || x > hi)
+    throw format_error("certificate: " + field + " is " + shown(v) + ", must be in [" + std::to_string(lo) + ", " +
+                       std::to_string(hi) + "]");
+  return static_cast<int>(x);
 }
 std::array<std::string, 2> str_pair(const json& v, const std::string& key) {
   if (!v.is_array() || v.size() != 2 || !v[0].is_string() || !v[1].is_string())
-    throw format_error("certificate: \"" + key + "\" must be [lo, hi] as two decimal strings, got " +
-                       v.dump().substr(0, 60));
+    throw format_error("certificate: \"" + key + "\" must be [lo, hi] as two decimal strings, got " + shown(v));
   return {v[0].get<std::string>(), v[1].get<std::string>()};
+}
+// [lo, hi] of finite decimals with lo <= hi (compared exactly at 1024 bits).
+std::array<std::string, 2> decimal_pair(const json& v, const std::string& key) {
+  const auto p = str_pair(v, key);
+  arith::PrecisionScope exact(1024);
+  try {
+    const arith::Im a = arith::from_decimal<arith::Im>(p[0]), b = arith::from_decimal<arith::Im>(p[1]);
+    if (!(a.lower() <= b.upper()))
+      throw format_error("certificate: \"" + key + "\" = [" + p[0] + ", " + p[1] + "] has lo above hi");
+  } catch (const std::invalid_argument& e) {
+    throw format_error("certificate: \"" + key + "\": " + e.what());
+  }
+  return p;
 }
 }  // namespace
 
 Stored parse(const json& j) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   Stored s;
   const auto& fmt = need(j, "format", json::value_t::string, "must be \"porecert-certificate\"");
   if (fmt.get<std::string>() != kFormat)
-    throw format_error("certificate: key \"format\" is \"" + fmt.get<std::string>() +
-                       "\", must be \"porecert-certificate\"");
+    throw format_error("certificate: key \"format\" is " + shown(fmt) + ", must be \"porecert-certificate\"");
   s.status = need(j, "status", json::value_t::string, "\"certified\" or \"not certified\"").get<std::string>();
   if (s.status != "certified" && s.status != "not certified")
-    throw format_error("certificate: key \"status\" is \"" + s.status +
-                       "\", must be \"certified\" or \"not certified\"");
+    throw format_error("certificate: key \"status\" is " + shown(j.at("status")) +
+                       ", must be \"certified\" or \"not certified\"");
   const auto R = str_pair(need(j, "R", json::value_t::array, "[lo, hi] decimal strings"), "R");
+  try {
+    model::check_R("certificate: R", R[0], R[1]);
+  } catch (const model::input_error& e) {
+    throw format_error(e.what());
+  }
   s.problem.R_lo = R[0];
   s.problem.R_hi = R[1];
   const auto& prob = need(j, "problem", json::value_t::object, "the problem statement");
@@ -205,7 +239,7 @@ Stored parse(const json& j) {
     s.model.name = name.get<std::string>();
     for (const auto& [k, v] : mp.items()) {
       if (!v.is_string())
-        throw format_error("certificate: problem.model_parameters." + k + " has value " + v.dump().substr(0, 60) +
+        throw format_error("certificate: problem.model_parameters." + k + " has value " + shown(v) +
                            " (must be a decimal string)");
       s.model.params.emplace_back(k, v.get<std::string>());
     }
@@ -217,39 +251,65 @@ Stored parse(const json& j) {
   }
   const model::Model<double> m0 = model::build_model<double>(s.model, 0.0);
   if (model != m0.id)
-    throw format_error("certificate: problem.model is \"" + model + "\" but model_name/model_parameters give \"" +
-                       m0.id + "\"");
+    throw format_error("certificate: problem.model is " + shown(prob.at("model")) +
+                       " but model_name/model_parameters give \"" + m0.id + "\"");
   if (j.contains("branch") && j["branch"].is_string()) s.problem.branch = j["branch"].get<std::string>();
   const auto& cand = need(j, "candidate", json::value_t::object, "the candidate, exactly");
-  s.precision_bits = need(cand, "precision_bits", json::value_t::number_integer, "an integer >= 53").get<int>();
-  if (s.precision_bits < 53 || s.precision_bits > 100000)
-    throw format_error("certificate: candidate.precision_bits is " + std::to_string(s.precision_bits) +
-                       ", must be in [53, 100000]");
+  // The precision range of `verify --precision`; the modes the proof accepts (nk_verify needs >= 8).
+  s.precision_bits = int_in(cand, "precision_bits", 53, 4096, "candidate.precision_bits");
   s.method = j.contains("method") && j["method"].is_string() ? j["method"].get<std::string>() : "newton-kantorovich";
   if (s.method == "reduced-ivp") {
-    s.eps = need(cand, "eps", json::value_t::number_integer, "+1 or -1").get<int>();
-    s.nth = need(cand, "nth_zero", json::value_t::number_integer, "an integer >= 1").get<int>();
-    if ((s.eps != 1 && s.eps != -1) || s.nth < 1 || s.nth > 8)
-      throw format_error("certificate: candidate.eps must be +1 or -1 and candidate.nth_zero in 1..8");
+    s.eps = int_in(cand, "eps", -1, 1, "candidate.eps");
+    s.nth = int_in(cand, "nth_zero", 1, 8, "candidate.nth_zero");
+    if (s.eps == 0) throw format_error("certificate: candidate.eps is 0, must be +1 or -1");
     const char* keys[4] = {"s_lo", "s_hi", "S_lo", "S_hi"};
-    for (int i = 0; i < 4; ++i)
+    for (int i = 0; i < 4; ++i) {
       s.reduced_s[i] = need(cand, keys[i], json::value_t::string, "an exact decimal or hex string").get<std::string>();
+      try {
+        (void)arith::from_decimal<arith::Id>(s.reduced_s[i]);
+      } catch (const std::invalid_argument& e) {
+        throw format_error(std::string("certificate: candidate.") + keys[i] + ": " + e.what());
+      }
+    }
   } else {
+    const int modes = int_in(cand, "modes", 8, 100000, "candidate.modes");
     const auto& coeffs = need(cand, "coefficients_hex", json::value_t::array, "list of exact hex strings");
-    const int modes = need(cand, "modes", json::value_t::number_integer, "number of Chebyshev modes").get<int>();
+    if (coeffs.size() != static_cast<std::size_t>(modes) + 2)
+      throw format_error("certificate: candidate.coefficients_hex has " + std::to_string(coeffs.size()) +
+                         " entries, must be modes + 2 = " + std::to_string(modes + 2) + " (truncated?)");
     for (const auto& c : coeffs) {
-      if (!c.is_string()) throw format_error("certificate: candidate.coefficients_hex holds a non-string " + c.dump());
+      if (!c.is_string()) throw format_error("certificate: candidate.coefficients_hex holds a non-string " + shown(c));
+      bool exact = false;
+      try {  // exact at the stored precision: the candidate is a point (docs/certificate.md)
+        if (s.precision_bits <= 53) {
+          const arith::Id v = arith::from_decimal<arith::Id>(c.get<std::string>());
+          exact = v.lower() == v.upper();
+        } else {
+          arith::PrecisionScope scope(s.precision_bits);
+          const arith::Im v = arith::from_decimal<arith::Im>(c.get<std::string>());
+          exact = v.lower() == v.upper();
+        }
+      } catch (const std::invalid_argument& e) {
+        throw format_error(std::string("certificate: candidate.coefficients_hex: ") + e.what());
+      }
+      if (!exact)
+        throw format_error("certificate: candidate.coefficients_hex: candidate coefficient '" +
+                           c.get<std::string>().substr(0, 60) + "' is not " +
+                           (s.precision_bits <= 53 ? std::string("a double")
+                                                   : "exact at " + std::to_string(s.precision_bits) + " bits") +
+                           " (rule: exact at candidate.precision_bits)");
       s.candidate_hex.push_back(c.get<std::string>());
     }
-    if (static_cast<int>(s.candidate_hex.size()) != modes + 2)
-      throw format_error("certificate: candidate.coefficients_hex has " + std::to_string(s.candidate_hex.size()) +
-                         " entries, must be modes + 2 = " + std::to_string(modes + 2) + " (truncated?)");
   }
   const auto er = need(j, "existence_radius", json::value_t::string, "decimal string").get<std::string>();
-  try {
-    s.existence_radius = arith::from_decimal<arith::Id>(er).upper();
-  } catch (const std::invalid_argument&) {
-    throw format_error("certificate: existence_radius is \"" + er + "\", must be a decimal number");
+  if (s.status == "certified") {  // an uncertified result may state "inf"
+    try {
+      s.existence_radius = arith::from_decimal<arith::Id>(er).upper();
+    } catch (const std::invalid_argument&) {
+      throw format_error("certificate: existence_radius is \"" + er.substr(0, 60) + "\", must be a decimal number");
+    }
+    if (!(s.existence_radius >= 0))
+      throw format_error("certificate: existence_radius is \"" + er.substr(0, 60) + "\", must be >= 0");
   }
   const auto& vals = need(j, "values", json::value_t::object, "the value enclosures");
   for (const auto& [k, v] : vals.items()) s.named_values.emplace_back(k, str_pair(v, "values." + k));
@@ -260,36 +320,70 @@ Stored parse(const json& j) {
     for (int i = 0; i < 4; ++i) {
       if (!vals.contains(kValueKeys[i]))
         throw format_error(std::string("certificate: values.\"") + kValueKeys[i] + "\" is missing");
-      s.values[i] = str_pair(vals.at(kValueKeys[i]), std::string("values.") + kValueKeys[i]);
+      s.values[i] = decimal_pair(vals.at(kValueKeys[i]), std::string("values.") + kValueKeys[i]);
     }
   return s;
 }
 
+json parse_text(const std::string& text, const std::string& source) {
+  const arith::FpEnvScope fp_env;  // number parsing (strtod) follows the rounding mode
+  try {
+    return json::parse(text);
+  } catch (const json::exception& e) {
+    throw format_error("certificate: '" + source + "' is not valid JSON (truncated?): " + e.what());
+  }
+}
+
 json read_file(const std::string& path) {
-  std::ifstream in(path);
+  std::ifstream in(path, std::ios::binary);
   if (!in) throw format_error("certificate: cannot read file '" + path + "'");
   std::stringstream ss;
   ss << in.rdbuf();
-  try {
-    return json::parse(ss.str());
-  } catch (const json::parse_error& e) {
-    throw format_error("certificate: '" + path + "' is not valid JSON (truncated?): " + e.what());
-  }
+  return parse_text(ss.str(), path);
 }
 
 void write_atomic(const std::string& path, const std::string& text) {
   if (path == "-") {
     std::fwrite(text.data(), 1, text.size(), stdout);
+    std::fflush(stdout);
     return;
   }
+  // Bad output path = bad input (exit 2); the temporary file never survives a failure.
   const std::string tmp = path + ".tmp-porecert";
+  const auto fail = [&](const std::string& why) {
+    std::error_code ec;
+    std::filesystem::remove(tmp, ec);
+    return model::input_error("output '" + path + "': cannot write (" + why +
+                              "; rule: the directory must exist and be writable, the path must not be a directory); "
+                              "nothing was written");
+  };
+  if (path.empty()) throw fail("empty path");
   {
     std::ofstream out(tmp, std::ios::binary | std::ios::trunc);
-    if (!out) throw std::runtime_error("cannot write '" + tmp + "'");
+    if (!out) throw fail("cannot create '" + tmp + "'");
     out << text;
-    if (!out) throw std::runtime_error("cannot write '" + tmp + "'");
+    out.flush();
+    if (!out) throw fail("write to '" + tmp + "' failed");
   }
-  std::filesystem::rename(tmp, path);
+  std::error_code ec;
+  std::filesystem::rename(tmp, path, ec);
+  if (ec) throw fail(ec.message());
+}
+
+void check_output(const std::string& path) {
+  if (path == "-") return;
+  const std::string tmp = path + ".tmp-porecert";
+  std::error_code ec;
+  if (path.empty() || std::filesystem::is_directory(path, ec))
+    throw model::input_error("output '" + path + "': is " + (path.empty() ? "empty" : "a directory") +
+                             " (rule: a file path in a writable directory); nothing was written");
+  {
+    std::ofstream out(tmp, std::ios::binary | std::ios::trunc);
+    if (!out)
+      throw model::input_error("output '" + path + "': cannot create '" + tmp +
+                               "' (rule: the directory must exist and be writable); nothing was written");
+  }
+  std::filesystem::remove(tmp, ec);
 }
 
 }  // namespace porecert::certificate

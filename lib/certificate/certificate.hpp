@@ -24,7 +24,7 @@ struct format_error : std::runtime_error {
   using std::runtime_error::runtime_error;
 };
 
-// Reads and validates the fixed keys; throws format_error.
+// Reads and validates the fixed keys; throws format_error (and nothing else: docs/soundness.md).
 struct Stored {
   Problem problem;
   std::string status;
@@ -40,9 +40,15 @@ struct Stored {
 };
 Stored parse(const nlohmann::json& j);
 nlohmann::json read_file(const std::string& path);  // throws format_error on unreadable / invalid JSON
+// JSON text → document; source names it in messages (fuzz target tests/fuzz/fuzz_certificate.cpp).
+nlohmann::json parse_text(const std::string& text, const std::string& source);
 
-// Writes text to path ("-" = stdout) atomically.
+// Writes text to path ("-" = stdout) atomically; throws model::input_error naming the path (exit 2)
+// when it cannot, and then leaves no temporary file and the old content of path as it was.
 void write_atomic(const std::string& path, const std::string& text);
+// Early check of an output path (same rule and message as write_atomic): creates and removes the
+// temporary file only, so a run that would end in an unwritable path fails before it starts.
+void check_output(const std::string& path);
 
 inline const char* kCaution =
     "Certifies mathematics, not a plant. The similarity model assumes fully developed, steady, laminar, "

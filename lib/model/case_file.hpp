@@ -5,6 +5,7 @@
 #include <optional>
 #include <stdexcept>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -30,8 +31,10 @@ struct CaseSettings {
   std::map<std::string, std::string> channel;
 };
 
-// Parses a case file; throws input_error naming the field.
+// Parses a case file; throws input_error naming the field (and nothing else: docs/soundness.md).
 CaseSettings read_case_file(const std::string& path);
+// The same from the file's text; source names it in messages (fuzz target tests/fuzz/fuzz_case_file.cpp).
+CaseSettings read_case_text(std::string_view text, const std::string& source);
 
 // "VALUE" or "LO:HI" → [lo, hi], checked: finite decimals, lo ≤ hi, |R| ≤ 1e5.
 std::pair<std::string, std::string> parse_R(const std::string& field, const std::string& text);

@@ -1,5 +1,6 @@
 #include "proof/branches.hpp"
 
+#include "arith/fp_env.hpp"
 #include "candidate/branch_search.hpp"
 #include "candidate/model_search.hpp"
 
@@ -18,6 +19,7 @@ arith::Tri distinct(const CertifyOutcome& a, const CertifyOutcome& b) {
 }
 
 BranchesOutcome certify_branches(const CertifyRequest& req) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   BranchesOutcome out;
   const arith::Id R =
       boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));

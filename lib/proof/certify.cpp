@@ -4,6 +4,7 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "arith/fp_env.hpp"
 #include "candidate/galerkin_newton.hpp"
 #include "candidate/reduced_shooting.hpp"
 #include "model/berman.hpp"
@@ -226,6 +227,7 @@ std::optional<ReducedPick> reduced_pick(const CertifyRequest& req, double R) {
 }  // namespace
 
 CertifyOutcome certify_berman(const CertifyRequest& req) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   const Id Rint = read_R<Id>(req.R_lo, req.R_hi);
   const double Rmid = arith::mid_double(Rint);
@@ -296,6 +298,7 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
 }
 
 CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>& x_candidate) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   const Id Rint = read_R<Id>(req.R_lo, req.R_hi);
   const double Rmid = arith::mid_double(Rint);
@@ -374,6 +377,7 @@ CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
 
 CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_lo, const std::string& R_hi,
                              const std::vector<std::string>& candidate_hex, int precision_bits) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   CertifyOutcome out;
   if (precision_bits <= 53) {

@@ -10,6 +10,7 @@
 #include <mutex>
 #include <stdexcept>
 
+#include "arith/fp_env.hpp"
 #include "proof/greens.hpp"
 
 namespace porecert::proof {
@@ -218,6 +219,7 @@ std::string unproved_inequalities_text(const std::vector<Inequality>& ineq) {
 }
 
 DirectResult certify_direct(const Id& R, const DirectOptions& opt) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   for (int k = 0; k < 4; ++k)
     if (!(std::isfinite(opt.weights[k]) && opt.weights[k] > 0))
       throw std::invalid_argument("weights: w_" + std::to_string(k) + " = " + fmt_g(opt.weights[k]) +

@@ -11,6 +11,7 @@
 #include <queue>
 #include <stdexcept>
 
+#include "arith/fp_env.hpp"
 #include "arith/sup_norm.hpp"
 #include "proof/greens.hpp"
 
@@ -416,6 +417,7 @@ nlohmann::json to_json(const DirectCandidateResult& r) {
 }
 
 C3Uniqueness c3_uniqueness_from_newton(const CertifyOutcome& o, const Id& R) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   C3Uniqueness u;
   if (!o.certified || o.candidate_hex.empty()) {
     u.statement = "no statement: the Newton-Kantorovich proof did not certify a candidate";

@@ -7,6 +7,7 @@
 #include <limits>
 #include <sstream>
 
+#include "arith/fp_env.hpp"
 #include "arith/midrad.hpp"
 #include "candidate/fold_candidate.hpp"
 #include "proof/radii.hpp"
@@ -61,6 +62,7 @@ std::array<double, 3> lambdas(const fs::NullSpace& ns) {
 
 template <arith::Interval I>
 FoldResult<I> fold_verify(const std::vector<I>& xbar, const fs::NullSpace& nsp) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const int N = fs::modes_of(xbar);
   if (N < 8 || static_cast<int>(xbar.size()) != fs::kScalars + 2 * N)
     throw std::invalid_argument("fold candidate needs 4 scalars and two series of at least 8 modes");
@@ -233,6 +235,7 @@ void take(FoldOutcome& o, const FoldResult<I>& r) {
 namespace {
 FoldOutcome certify_extended(const candidate::FoldCandidate& cand, const fs::NullSpace& ns, double target_width,
                              int precision_bits, std::chrono::steady_clock::time_point t0) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   FoldOutcome out;
   out.log = cand.log;
   auto finish = [&] {
@@ -282,6 +285,7 @@ FoldOutcome certify_symmetry_breaking(double target_width, int precision_bits, i
 }
 
 FoldOutcome recheck_fold(const std::vector<std::string>& hex, int precision_bits, const fs::NullSpace& ns) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   FoldOutcome out;
   if (hex.size() < static_cast<std::size_t>(fs::kScalars) + 16 || (hex.size() - fs::kScalars) % 2 != 0)

@@ -10,6 +10,8 @@
 #include <string>
 #include <vector>
 
+#include "arith/fp_env.hpp"
+
 namespace porecert::proof {
 
 namespace bn = boost::numeric;
@@ -356,6 +358,7 @@ SupEnclosure<I> sup_by_subdivision(const std::function<I(double)>& point, const 
 
 template <Interval I>
 std::array<SupEnclosure<I>, 4> greens_beta_detailed(double rel_tol) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   std::array<SupEnclosure<I>, 4> out;
   for (int k = 0; k < 4; ++k) {
     out[k] = sup_by_subdivision<I>([k](double x) { return greens_abs_integral<I>(k, x); },

@@ -6,6 +6,7 @@
 #include <sstream>
 #include <stdexcept>
 
+#include "arith/fp_env.hpp"
 #include "arith/midrad.hpp"
 #include "model/operator.hpp"
 #include "proof/radii.hpp"
@@ -92,7 +93,6 @@ Id to_id(const I& x) {
   return arith::to_id(x);
 }
 
-
 // Functionals of tail modes through which the finite block sees them (docs/method.md (M3.9)):
 // kind (m, i ≥ 0): coefficient i of the low part of J^m T_l; kind (m, −1): (J^m T_l)(1).
 struct TailFunctionals {
@@ -157,8 +157,30 @@ double tail_estimate(const model::Model<Id>& m, const std::vector<Id>& xbar, lon
   return tail;
 }
 
+namespace {
+template <arith::Interval I>
+NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& xbar);
+}  // namespace
+
 template <arith::Interval I>
 NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
+  try {
+    return nk_verify_unguarded(m, xbar);
+  } catch (const arith::nan_error& e) {
+    // A candidate so large that a bound overflows (found by tests/test_adversarial.cpp): no proof,
+    // and no crash either. The enclosures stay unset; certified = false says they mean nothing.
+    NKResult<I> res;
+    res.modes = static_cast<int>(xbar.size()) - m.n_scalars();
+    res.failure = std::string("a bound is not finite in this arithmetic (") + e.what() +
+                  "): the candidate is too large or too rough to check";
+    return res;
+  }
+}
+
+namespace {
+template <arith::Interval I>
+NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& xbar) {
   if (!m.well_formed()) throw std::invalid_argument("model is not square (rows != scalar unknowns)");
   const int ns = m.n_scalars();
   const int N = static_cast<int>(xbar.size()) - ns;
@@ -339,6 +361,7 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
   res.K = xbar[m.k_index()] + r_ball;
   return res;
 }
+}  // namespace
 
 template NKResult<Id> nk_verify<Id>(const model::Model<Id>&, const std::vector<Id>&);
 template NKResult<Im> nk_verify<Im>(const model::Model<Im>&, const std::vector<Im>&);
