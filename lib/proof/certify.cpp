@@ -274,7 +274,8 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     CertifyOutcome out;
     out.model = spec;
     out.failure = "no candidate: " + cand.note;
-    out.log = log;
+    out.log = pre;  // the reduced method's attempts first, when it was tried
+    out.log.insert(out.log.end(), log.begin(), log.end());
     return out;
   }
   CertifyOutcome out = certify_from(req, cand.x);
