@@ -701,7 +701,7 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
   }
   const int bits = precision_bits != 0 ? precision_bits : (std::fabs(*sbar) > 1e-140L ? 53 : 128);
   const long double R0 = arith::lower_down(Rint), R1 = arith::upper_up(Rint);
-  long double margin = (bits <= 53 ? 1e-13L : std::ldexp(1.0L, -std::min(bits, 60) + 10)) * (1 + std::fabs(Rmid));
+  long double margin = (bits <= 53 ? 2e-14L : std::ldexp(1.0L, -std::min(bits, 60) + 10)) * (1 + std::fabs(Rmid));
   std::vector<std::string> log;
   log.push_back("candidate: reduced shooting, eps = " + std::to_string(eps) + ", zero " + std::to_string(nth) +
                 ", s = " + exact_string(*sbar, 53));
@@ -732,7 +732,7 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
       return p.r;
     }
     if (p.part == Part::bracket) {
-      margin *= 8;
+      margin *= 4;
       if (!solve_ends()) break;
       log.push_back("remedy: wider bracket");
     } else if (p.part == Part::uniqueness && rho > 0) {
