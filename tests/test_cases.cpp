@@ -10,20 +10,11 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
+#include "support/run_cli.hpp"
+
 namespace {
-struct Run {
-  int rc;
-  std::string out;
-};
-Run porecert_cli(const std::string& args) {
-  const std::string cmd = std::string(PORECERT_BINARY) + " " + args + " 2>&1";
-  FILE* p = popen(cmd.c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::fgets(buf, sizeof buf, p)) out += buf;
-  const int st = pclose(p);
-  return {WEXITSTATUS(st), out};
-}
+using ::porecert::test::porecert_cli;
+using ::porecert::test::Run;
 nlohmann::json read_json(const std::string& path) {
   std::ifstream in(path);
   return nlohmann::json::parse(in);

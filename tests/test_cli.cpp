@@ -7,20 +7,11 @@
 #include <sstream>
 #include <string>
 
+#include "support/run_cli.hpp"
+
 namespace {
-struct Run {
-  int rc;
-  std::string out;
-};
-Run porecert(const std::string& args) {
-  const std::string cmd = std::string(PORECERT_BINARY) + " " + args + " 2>&1";
-  FILE* p = popen(cmd.c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::fgets(buf, sizeof buf, p)) out += buf;
-  const int st = pclose(p);
-  return {WEXITSTATUS(st), out};
-}
+using ::porecert::test::porecert_cli;
+using ::porecert::test::Run;
 std::string slurp(const std::string& path) {
   std::ifstream in(path);
   std::stringstream ss;
@@ -32,34 +23,34 @@ const std::string tmp = "/tmp/porecert-test-cli";
 
 TEST_CASE("verify certifies the demo case and recheck confirms it") {
   std::system(("mkdir -p " + tmp).c_str());
-  const auto r = porecert("verify " PORECERT_SOURCE_DIR "/cases/membrane-module.toml --json " + tmp + "/demo.json");
+  const auto r = porecert_cli("verify " PORECERT_SOURCE_DIR "/cases/membrane-module.toml --json " + tmp + "/demo.json");
   CHECK(r.rc == 0);
   CHECK(r.out.find("CERTIFIED") != std::string::npos);
   const std::string cert = slurp(tmp + "/demo.json");
   CHECK(cert.find("\"status\": \"certified\"") != std::string::npos);
-  const auto rc = porecert("recheck " + tmp + "/demo.json");
+  const auto rc = porecert_cli("recheck " + tmp + "/demo.json");
   CHECK(rc.rc == 0);
   CHECK(rc.out.find("CONFIRMED") != std::string::npos);
 }
 
 TEST_CASE("negative R works in both spellings") {
-  CHECK(porecert("verify --R=-10").rc == 0);
-  CHECK(porecert("verify --R -10").rc == 0);
+  CHECK(porecert_cli("verify --R=-10").rc == 0);
+  CHECK(porecert_cli("verify --R -10").rc == 0);
 }
 
 TEST_CASE("bad input: exit 2, message names option, value and rule") {
-  auto r = porecert("verify --R=abc");
+  auto r = porecert_cli("verify --R=abc");
   CHECK(r.rc == 2);
   CHECK(r.out.find("--R") != std::string::npos);
   CHECK(r.out.find("abc") != std::string::npos);
-  r = porecert("verify --R=nan");
+  r = porecert_cli("verify --R=nan");
   CHECK(r.rc == 2);
-  r = porecert("verify --R=3e5");
+  r = porecert_cli("verify --R=3e5");
   CHECK(r.rc == 2);
   CHECK(r.out.find("range") != std::string::npos);
-  r = porecert("verify --R=2:1");
+  r = porecert_cli("verify --R=2:1");
   CHECK(r.rc == 2);
-  r = porecert("verify --R=1 --modes 3");
+  r = porecert_cli("verify --R=1 --modes 3");
   CHECK(r.rc == 2);
   CHECK(r.out.find("--modes") != std::string::npos);
 }
@@ -70,33 +61,33 @@ TEST_CASE("malformed case file and truncated certificate: exit 2, nothing alread
     std::ofstream f(tmp + "/bad.toml");
     f << "[flow]\nreynolds = 12.5\n";
   }
-  auto r = porecert("verify " + tmp + "/bad.toml");
+  auto r = porecert_cli("verify " + tmp + "/bad.toml");
   CHECK(r.rc == 2);
   CHECK(r.out.find("flow.reynolds") != std::string::npos);
   {
     std::ofstream f(tmp + "/broken.toml");
     f << "[flow\nreynolds = \"1\"\n";
   }
-  CHECK(porecert("verify " + tmp + "/broken.toml").rc == 2);
+  CHECK(porecert_cli("verify " + tmp + "/broken.toml").rc == 2);
   // A good certificate, then a truncated copy: recheck refuses the copy; the original is untouched.
-  REQUIRE(porecert("verify --R=2 --json " + tmp + "/good.json").rc == 0);
+  REQUIRE(porecert_cli("verify --R=2 --json " + tmp + "/good.json").rc == 0);
   const std::string good = slurp(tmp + "/good.json");
   {
     std::ofstream f(tmp + "/trunc.json");
     f << good.substr(0, good.size() / 2);
   }
-  r = porecert("recheck " + tmp + "/trunc.json");
+  r = porecert_cli("recheck " + tmp + "/trunc.json");
   CHECK(r.rc == 2);
   CHECK(r.out.find("truncated") != std::string::npos);
   // A failing run must not clobber an existing certificate at the target path.
-  r = porecert("verify --R=abc --json " + tmp + "/good.json");
+  r = porecert_cli("verify --R=abc --json " + tmp + "/good.json");
   CHECK(r.rc == 2);
   CHECK(slurp(tmp + "/good.json") == good);
 }
 
 TEST_CASE("recheck rejects a tampered certificate") {
   std::system(("mkdir -p " + tmp).c_str());
-  REQUIRE(porecert("verify --R=3 --json " + tmp + "/t.json").rc == 0);
+  REQUIRE(porecert_cli("verify --R=3 --json " + tmp + "/t.json").rc == 0);
   std::string c = slurp(tmp + "/t.json");
   // Narrow the stated K enclosure to a wrong point: the re-proof cannot be contained in it.
   const auto k = c.find("\"K\": [", c.find("\"values\""));
@@ -107,32 +98,32 @@ TEST_CASE("recheck rejects a tampered certificate") {
     std::ofstream f(tmp + "/t2.json");
     f << c;
   }
-  const auto r = porecert("recheck " + tmp + "/t2.json");
+  const auto r = porecert_cli("recheck " + tmp + "/t2.json");
   CHECK(r.rc == 1);
   CHECK(r.out.find("REJECTED") != std::string::npos);
 }
 
 TEST_CASE("greens prints the four beta_k and the direct method certifies R = +-0.27") {
   std::system(("mkdir -p " + tmp).c_str());
-  auto g = porecert("greens --json " + tmp + "/beta.json");
+  auto g = porecert_cli("greens --json " + tmp + "/beta.json");
   CHECK(g.rc == 0);
   const std::string b = slurp(tmp + "/beta.json");
   CHECK(b.find("\"beta\"") != std::string::npos);
   // Reported for the direct method about the Stokes profile: |R| < 0.27 with a ball of about 0.07.
-  auto d = porecert("verify --R=0.27 --method direct --json " + tmp + "/d.json");
+  auto d = porecert_cli("verify --R=0.27 --method direct --json " + tmp + "/d.json");
   CHECK(d.rc == 0);
   CHECK(slurp(tmp + "/d.json").find("\"status\": \"certified\"") != std::string::npos);
-  CHECK(porecert("verify --R=-0.27 --method direct").rc == 0);
-  auto far = porecert("verify --R=5 --method direct");
+  CHECK(porecert_cli("verify --R=-0.27 --method direct").rc == 0);
+  auto far = porecert_cli("verify --R=5 --method direct");
   CHECK(far.rc == 1);
   CHECK(far.out.find("NOT CERTIFIED") != std::string::npos);
-  CHECK(porecert("verify --R=1 --method banach").rc == 2);
+  CHECK(porecert_cli("verify --R=1 --method banach").rc == 2);
 }
 
 TEST_CASE("fold result re-checks from its stored candidate; a moved fold_R is rejected") {
   std::system(("mkdir -p " + tmp).c_str());
-  REQUIRE(porecert("fold --no-below-check --json " + tmp + "/fold.json").rc == 0);
-  auto r = porecert("recheck " + tmp + "/fold.json");
+  REQUIRE(porecert_cli("fold --no-below-check --json " + tmp + "/fold.json").rc == 0);
+  auto r = porecert_cli("recheck " + tmp + "/fold.json");
   CHECK(r.rc == 0);
   CHECK(r.out.find("CONFIRMED") != std::string::npos);
   std::string c = slurp(tmp + "/fold.json");
@@ -143,7 +134,7 @@ TEST_CASE("fold result re-checks from its stored candidate; a moved fold_R is re
     std::ofstream f(tmp + "/fold2.json");
     f << c;
   }
-  r = porecert("recheck " + tmp + "/fold2.json");
+  r = porecert_cli("recheck " + tmp + "/fold2.json");
   CHECK(r.rc == 1);
   CHECK(r.out.find("REJECTED") != std::string::npos);
 }

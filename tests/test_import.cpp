@@ -10,23 +10,13 @@
 #include "candidate/import.hpp"
 #include "proof/submission.hpp"
 #include "reference/berman_shooting.hpp"
+#include "support/run_cli.hpp"
 
 using namespace porecert;
 
 namespace {
-struct Run {
-  int rc;
-  std::string out;
-};
-Run porecert_run(const std::string& args) {
-  const std::string cmd = std::string(PORECERT_BINARY) + " " + args + " 2>&1";
-  FILE* p = popen(cmd.c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::fgets(buf, sizeof buf, p)) out += buf;
-  const int st = pclose(p);
-  return {WEXITSTATUS(st), out};
-}
+using ::porecert::test::Run;
+constexpr auto porecert_run = ::porecert::test::porecert_cli;
 const std::string bad = PORECERT_SOURCE_DIR "/tests/data/bad/";
 bool has(const std::string& s, const std::string& w) { return s.find(w) != std::string::npos; }
 }  // namespace

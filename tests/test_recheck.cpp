@@ -10,20 +10,11 @@
 #include <string>
 #include <vector>
 
+#include "support/run_cli.hpp"
+
 namespace {
-struct Run {
-  int rc;
-  std::string out;
-};
-Run run_porecert(const std::string& args) {
-  const std::string cmd = std::string(PORECERT_BINARY) + " " + args + " 2>&1";
-  FILE* p = popen(cmd.c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::fgets(buf, sizeof buf, p)) out += buf;
-  const int st = pclose(p);
-  return {WEXITSTATUS(st), out};
-}
+using ::porecert::test::Run;
+constexpr auto run_porecert = ::porecert::test::porecert_cli;
 const std::string dir = "/tmp/porecert-test-recheck";
 nlohmann::json load(const std::string& p) {
   std::ifstream in(p);

@@ -12,23 +12,13 @@
 #include "proof/certify.hpp"
 #include "reference/berman_shooting.hpp"
 #include "report/report.hpp"
+#include "support/run_cli.hpp"
 
 using namespace porecert;
 
 namespace {
-struct Run {
-  int rc;
-  std::string out;
-};
-Run porecert_cli(const std::string& args) {
-  const std::string cmd = std::string(PORECERT_BINARY) + " " + args + " 2>&1";
-  FILE* p = popen(cmd.c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::fgets(buf, sizeof buf, p)) out += buf;
-  const int st = pclose(p);
-  return {WEXITSTATUS(st), out};
-}
+using ::porecert::test::porecert_cli;
+using ::porecert::test::Run;
 std::string slurp(const std::string& path) {
   std::ifstream in(path);
   std::stringstream ss;
