@@ -12,12 +12,7 @@
 namespace {
 using ::porecert::test::porecert_cli;
 using ::porecert::test::Run;
-std::string slurp(const std::string& path) {
-  std::ifstream in(path);
-  std::stringstream ss;
-  ss << in.rdbuf();
-  return ss.str();
-}
+using ::porecert::test::slurp;
 const std::string tmp = "/tmp/porecert-test-cli";
 }  // namespace
 

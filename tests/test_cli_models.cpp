@@ -13,13 +13,8 @@
 namespace {
 using ::porecert::test::porecert_cli;
 using ::porecert::test::Run;
-std::string slurp(const std::string& path) {
-  std::ifstream in(path);
-  std::stringstream ss;
-  ss << in.rdbuf();
-  return ss.str();
-}
-void spit(const std::string& path, const std::string& text) { std::ofstream(path) << text; }
+using ::porecert::test::slurp;
+using ::porecert::test::spit;
 const std::string tmp = "/tmp/porecert-test-cli-models";
 }  // namespace
 

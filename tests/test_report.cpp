@@ -19,13 +19,8 @@ using namespace porecert;
 namespace {
 using ::porecert::test::porecert_cli;
 using ::porecert::test::Run;
-std::string slurp(const std::string& path) {
-  std::ifstream in(path);
-  std::stringstream ss;
-  ss << in.rdbuf();
-  return ss.str();
-}
-void spit(const std::string& path, const std::string& s) { std::ofstream(path) << s; }
+using ::porecert::test::slurp;
+using ::porecert::test::spit;
 const std::string tmp = "/tmp/porecert-test-report";
 }  // namespace
 

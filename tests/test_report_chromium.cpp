@@ -10,19 +10,11 @@
 #include <sstream>
 #include <string>
 
+#include "support/run_cli.hpp"
+
 namespace {
-struct Run {
-  int rc;
-  std::string out;
-};
-Run sh(const std::string& cmd) {
-  FILE* p = popen((cmd + " 2>&1").c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::fgets(buf, sizeof buf, p)) out += buf;
-  const int st = pclose(p);
-  return {WEXITSTATUS(st), out};
-}
+using ::porecert::test::Run;
+constexpr auto sh = ::porecert::test::shell;
 std::string chromium() {
   for (const char* c : {"/usr/bin/chromium", "/usr/bin/chromium-browser"})
     if (std::ifstream(c).good()) return c;

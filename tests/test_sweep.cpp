@@ -17,30 +17,16 @@
 #include "certificate/journal.hpp"
 #include "certificate/sweep.hpp"
 #include "proof/sweep.hpp"
+#include "support/run_cli.hpp"
 
 namespace {
 namespace fs = std::filesystem;
 using nlohmann::json;
 const std::string dir = "/tmp/porecert-test-sweep-" + std::to_string(::getpid());
 
-struct Run {
-  int rc;
-  std::string out;
-};
-Run run(const std::string& cmd) {
-  FILE* p = popen((cmd + " 2>&1").c_str(), "r");
-  std::string out;
-  char buf[4096];
-  while (std::fgets(buf, sizeof buf, p)) out += buf;
-  const int st = pclose(p);
-  return {WEXITSTATUS(st), out};
-}
-std::string slurp(const std::string& path) {
-  std::ifstream in(path, std::ios::binary);
-  std::stringstream ss;
-  ss << in.rdbuf();
-  return ss.str();
-}
+using ::porecert::test::Run;
+constexpr auto run = ::porecert::test::shell;
+using ::porecert::test::slurp;
 int lines_of(const std::string& path) {
   const std::string s = slurp(path);
   return static_cast<int>(std::count(s.begin(), s.end(), '\n'));

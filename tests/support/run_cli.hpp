@@ -1,9 +1,12 @@
-// Test support: run the real porecert binary (PORECERT_BINARY, set by CMake) and collect its exit
-// status and output (stdout and stderr together). Shared by the command-line tests.
+// Test support: run a shell command or the real porecert binary (PORECERT_BINARY, set by CMake) and
+// collect its exit status and output (stdout and stderr together); read and write whole files.
+// Shared by the command-line tests.
 #pragma once
 #include <sys/wait.h>
 
 #include <cstdio>
+#include <fstream>
+#include <sstream>
 #include <string>
 
 namespace porecert::test {
@@ -13,14 +16,24 @@ struct Run {
   std::string out;  // stdout and stderr
 };
 
-inline Run porecert_cli(const std::string& args) {
-  const std::string cmd = std::string(PORECERT_BINARY) + " " + args + " 2>&1";
-  FILE* p = popen(cmd.c_str(), "r");
+inline Run shell(const std::string& cmd) {
+  FILE* p = popen((cmd + " 2>&1").c_str(), "r");
   std::string out;
   char buf[4096];
   while (std::fgets(buf, sizeof buf, p)) out += buf;
   const int st = pclose(p);
   return {WEXITSTATUS(st), out};
 }
+
+inline Run porecert_cli(const std::string& args) { return shell(std::string(PORECERT_BINARY) + " " + args); }
+
+inline std::string slurp(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::stringstream ss;
+  ss << in.rdbuf();
+  return ss.str();
+}
+
+inline void spit(const std::string& path, const std::string& text) { std::ofstream(path, std::ios::binary) << text; }
 
 }  // namespace porecert::test
