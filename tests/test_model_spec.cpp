@@ -9,6 +9,7 @@
 
 #include "model/case_file.hpp"
 #include "model/model_spec.hpp"
+#include "model/operator.hpp"
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
 
@@ -217,4 +218,33 @@ TEST_CASE("moving walls at R = 0: dK/dalpha = 9/5, df''(1)/dalpha = 4/5, df'(0)/
   CHECK(std::fabs(d("f'(0)") - 0.1) < 1e-4);
   // And it matters: at alpha = 0.001 K is not Berman's -3.
   CHECK(!boost::numeric::in(-3.0, value(p, "K").id));
+}
+
+TEST_CASE("every model is affine in R (the box predictor (M3.11) relies on it)") {
+  // F(x; 2) - 2 F(x; 1) + F(x; 0) must contain 0 in every row and coefficient for a rough x.
+  for (const char* name : {"berman", "full-channel", "mhd", "moving-walls", "slip"}) {
+    model::ModelSpec spec;
+    if (std::string(name) == "slip") {
+      spec.set("slip", "0.3");
+    } else {
+      spec.name = name;
+      if (spec.name == "mhd") spec.set("hartmann", "2");
+      if (spec.name == "moving-walls") spec.set("expansion", "0.7");
+      if (spec.name == "full-channel") spec.set("wall-ratio", "0.5");
+    }
+    const auto m0 = model::build_model<arith::Id>(spec, arith::Id(0));
+    std::vector<arith::Id> x;
+    for (int i = 0; i < m0.n_scalars() + 12; ++i) x.emplace_back(std::sin(1.0 + 0.7 * i) / (1 + i));
+    const auto r0 = model::residual(m0, x);
+    const auto r1 = model::residual(model::build_model<arith::Id>(spec, arith::Id(1)), x);
+    const auto r2 = model::residual(model::build_model<arith::Id>(spec, arith::Id(2)), x);
+    auto second = model::add_scaled(model::add_scaled(r2, r1, arith::Id(-2)), r0, arith::Id(1));
+    for (const auto& v : second.rows) CHECK(boost::numeric::in(0.0, v));
+    for (const auto& v : second.fun) CHECK(boost::numeric::in(0.0, v));
+    // And it is not trivially so: the first difference is not zero.
+    const auto first = model::add_scaled(r1, r0, arith::Id(-1));
+    double mx = 0;
+    for (const auto& v : first.fun) mx = std::max(mx, std::fabs(arith::mid_double(v)));
+    CHECK(mx > 1e-3);
+  }
 }

@@ -106,3 +106,39 @@ TEST_CASE("a failed proof names the inequality and the margin") {
   CHECK(r.failure.find("must be") != std::string::npos);
   CHECK(r.failure.find("short by") != std::string::npos);
 }
+
+TEST_CASE("first-order predictor (M3.11) and sharper Z2 (M3.10): an injection box that needs both") {
+  // R = -30 +- 5e-4: with a plain interval candidate Y0 is first order in the width (about 2e-3)
+  // and fails the radii polynomial; the predictor makes it second order.
+  proof::CertifyRequest q;
+  q.R_lo = "-30.0005";
+  q.R_hi = "-29.9995";
+  q.method = "newton";
+  q.precision_bits = 53;
+  const auto box = proof::certify_berman(q);
+  REQUIRE(box.certified);
+  REQUIRE(box.tangent_hex.size() == box.candidate_hex.size());
+  CHECK(box.Y0 < 1e-5);
+  // Z2 only through the function columns of A: far below the crude ‖A‖ Σ 2|c| λ λ.
+  CHECK(box.Z2 < 0.1 * box.A_norm * 4 * 30);
+  // Point proofs at the ends and the middle lie in the box's enclosures (same true solutions).
+  for (const char* Rs : {"-30.0005", "-30", "-29.9995"}) {
+    proof::CertifyRequest p = q;
+    p.R_lo = p.R_hi = Rs;
+    const auto pt = proof::certify_berman(p);
+    REQUIRE(pt.certified);
+    CHECK(boost::numeric::subset(enc(pt.K), enc(box.K)));
+    CHECK(boost::numeric::subset(enc(pt.fpp1), enc(box.fpp1)));
+    CHECK(boost::numeric::subset(enc(pt.fp0), enc(box.fp0)));
+  }
+  // The same box without a useful predictor (tangent 0: the plain interval method) is not certified,
+  // so the predictor is what carries the proof; the stored tangent re-proves it.
+  std::vector<std::string> zero(box.tangent_hex.size(), "0x0p+0");
+  CHECK_FALSE(proof::recheck_berman(q.R_lo, q.R_hi, box.candidate_hex, 53, zero).certified);
+  const auto again = proof::recheck_berman(q.R_lo, q.R_hi, box.candidate_hex, 53, box.tangent_hex);
+  CHECK(again.certified);
+  CHECK(again.existence_radius <= box.existence_radius);
+  // A tangent of the wrong length is refused, not padded.
+  std::vector<std::string> short_t(box.tangent_hex.begin(), box.tangent_hex.end() - 1);
+  CHECK_THROWS_AS(proof::recheck_berman(q.R_lo, q.R_hi, box.candidate_hex, 53, short_t), std::invalid_argument);
+}

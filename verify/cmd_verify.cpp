@@ -300,7 +300,8 @@ int recheck_stated_values(const std::string& path, const certificate::Stored& s)
   try {
     o = reduced ? proof::outcome_of(proof::reduced_prove(s.problem.R_lo, s.problem.R_hi, s.eps, s.nth, s.reduced_s[0],
                                                          s.reduced_s[1], s.reduced_s[2], s.reduced_s[3], bits))
-                : proof::recheck_model(s.model, s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits);
+                : proof::recheck_model(s.model, s.problem.R_lo, s.problem.R_hi, s.candidate_hex, s.precision_bits,
+                                       s.tangent_hex);
   } catch (const std::invalid_argument& e) {
     throw input_error("certificate '" + path + "': " + e.what());
   }

@@ -32,6 +32,14 @@ arith::MatD truncated_jacobian(const Model<double>& m, const Vec& x) {
   return J;
 }
 
+Vec tangent_in_R(const Model<double>& at_R, const Model<double>& at_0, const Model<double>& at_1, const Vec& x) {
+  const Eigen::VectorXd rhs = truncated_residual(at_1, x) - truncated_residual(at_0, x);
+  const Eigen::VectorXd t = -Eigen::PartialPivLU<arith::MatD>(truncated_jacobian(at_R, x)).solve(rhs);
+  Vec out(x.size(), 0.0);
+  for (std::size_t i = 0; i < x.size(); ++i) out[i] = std::isfinite(t(i)) ? t(i) : 0.0;
+  return out;
+}
+
 NewtonReport newton(const Model<double>& m, Vec x, int max_iterations, double tol) {
   NewtonReport rep;
   double prev_step = HUGE_VAL;

@@ -20,6 +20,9 @@ using model::Model;
 // Truncated residual Π_N F(x) (rows first) and its Jacobian, in plain double.
 Eigen::VectorXd truncated_residual(const Model<double>& m, const Vec& x);
 arith::MatD truncated_jacobian(const Model<double>& m, const Vec& x);
+// Tangent dx/dR of the Galerkin branch through x at_R (non-rigorous): J x1 = −∂F_N/∂R with
+// ∂F/∂R = F(·; R = 1) − F(·; R = 0) (the model family is affine in R, docs/models.md §0).
+Vec tangent_in_R(const Model<double>& at_R, const Model<double>& at_0, const Model<double>& at_1, const Vec& x);
 
 struct NewtonReport {
   Vec x;

@@ -159,6 +159,12 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
                      ? "[g''(0), K_x, u_0, ..., u_{N-1}], u = g''' = sum u_k T_k(2 x - 1), x = (eta + 1)/2"
                      : "[f'(0), K, u_0, ..., u_{N-1}], u = f''' = sum u_k T_k(2 eta - 1)"},
       {"coefficients_hex", o.candidate_hex}};
+  if (!o.tangent_hex.empty()) {
+    j["candidate"]["tangent_hex"] = o.tangent_hex;
+    j["candidate"]["tangent_meaning"] =
+        "x1: for R in the box the proof is about x(R) = coefficients + (R - R0) x1, R0 the double nearest the "
+        "midpoint of R; the radii are stated about the coefficients (docs/method.md (M3.11))";
+  }
   if (o.reduced) reduced_into(j, *o.reduced);
   j["log"] = o.log;
   j["seconds"] = o.seconds;
@@ -299,6 +305,24 @@ Stored parse(const json& j) {
                                                    : "exact at " + std::to_string(s.precision_bits) + " bits") +
                            " (rule: exact at candidate.precision_bits)");
       s.candidate_hex.push_back(c.get<std::string>());
+    }
+    if (cand.contains("tangent_hex")) {
+      const auto& t = need(cand, "tangent_hex", json::value_t::array, "list of exact hex strings");
+      if (t.size() != coeffs.size())
+        throw format_error("certificate: candidate.tangent_hex has " + std::to_string(t.size()) +
+                           " entries, must equal coefficients_hex (" + std::to_string(coeffs.size()) + ")");
+      for (const auto& c : t) {
+        bool exact = false;
+        if (c.is_string()) try {
+            const arith::Id v = arith::from_decimal<arith::Id>(c.get<std::string>());
+            exact = v.lower() == v.upper();
+          } catch (const std::invalid_argument&) {
+          }
+        if (!exact)
+          throw format_error("certificate: candidate.tangent_hex: entry " + shown(c) +
+                             " is not a double (rule: exact hex or decimal strings of doubles)");
+        s.tangent_hex.push_back(c.get<std::string>());
+      }
     }
   }
   const auto er = need(j, "existence_radius", json::value_t::string, "decimal string").get<std::string>();

@@ -30,6 +30,7 @@ struct Stored {
   std::string status;
   int precision_bits = 53;
   std::vector<std::string> candidate_hex;
+  std::vector<std::string> tangent_hex;  // predictor of an interval box (docs/method.md (M3.11)); may be empty
   double existence_radius = 0;
   std::string method = "newton-kantorovich";         // or "reduced-ivp"
   int eps = 1, nth = 1;                              // reduced-ivp: branch data

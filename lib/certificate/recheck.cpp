@@ -75,7 +75,7 @@ RecheckReport independent_recheck(const json& j) {
   rep.precision_bits = s.precision_bits <= 53 ? 128 : s.precision_bits + 64;
   proof::CertifyOutcome o;
   try {
-    o = proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, rep.precision_bits);
+    o = proof::recheck_berman(s.problem.R_lo, s.problem.R_hi, s.candidate_hex, rep.precision_bits, s.tangent_hex);
   } catch (const std::invalid_argument& e) {
     throw format_error(std::string("certificate: candidate.coefficients_hex: ") + e.what());
   }

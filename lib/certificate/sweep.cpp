@@ -275,10 +275,25 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
         const auto inside = [&](const json& x, const json& y) {  // bracket of x within S of y
           return v(y, "S_lo").upper() <= v(x, "s_lo").lower() && v(x, "s_hi").upper() <= v(y, "S_hi").lower();
         };
-        g = inside(ca, cb) || inside(cb, ca);
+        // (S3'): S_a and S_b meet, so their union is one interval, and dR/ds has one certified sign on
+        // both: R is strictly monotone on the union, so the shared R has one s there (both boxes' s).
+        const auto sign = [&](const json& b) {
+          const json& d = b["certificate"]["bounds"]["dR/ds on S"];
+          const double lo = arith::from_decimal<arith::Id>(d[0].get<std::string>()).lower();
+          const double hi = arith::from_decimal<arith::Id>(d[1].get<std::string>()).upper();
+          return lo > 0 ? 1 : hi < 0 ? -1 : 0;
+        };
+        const auto meet = [&](const json& x, const json& y) {
+          return v(y, "S_lo").upper() <= v(x, "S_hi").lower() && v(x, "S_lo").upper() <= v(y, "S_hi").lower();
+        };
+        const int sa = sign(boxes[i]), sb = sign(boxes[i + 1]);
+        g = inside(ca, cb) || inside(cb, ca) || (sa != 0 && sa == sb && meet(ca, cb));
       }
       j["glued"] = g ? "glued" : "not glued";
-      if (!g) j["reason"] = "neither box's s bracket lies in the other's uniqueness set S (docs/sweep.md (S3))";
+      if (!g)
+        j["reason"] =
+            "neither box's s bracket lies in the other's uniqueness set S, nor do the two sets S meet with one sign "
+            "of dR/ds (docs/sweep.md (S3))";
     } else if (ci && cj) {
       const auto hex = [](const json& b) {
         return b["certificate"]["candidate"]["coefficients_hex"].get<std::vector<std::string>>();

@@ -114,4 +114,40 @@ Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 
   return v;
 }
 
+// DF(x̄) v for a direction v in the unknown layout (Dbar = lift of x̄): the column combination
+// Σ_j v_j DF(x̄) e_j in one pass. On interval types it encloses the exact product for all data
+// inside the inputs. Used by the R-predictor of interval boxes (docs/method.md (M3.11)).
+template <class S>
+Value<S> derivative_apply(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, const std::vector<S>& v) {
+  std::array<S, 3> c{S(0), S(0), S(0)};
+  for (int d = 0; d < 3; ++d)
+    if (!m.fixed_at_0[d]) c[d] = v[m.free_index(d)];
+  const auto D = lift(c, u_of(m, v));
+  Value<S> r;
+  for (const auto& row : m.rows) {
+    S s(0);
+    for (int d = 0; d < 3; ++d) s = s + row.coef[d] * cheb::value_at_1(D[d]);
+    r.rows.push_back(s);
+  }
+  cheb::Series<S> f = D[3];
+  f[0] = f[0] - v[m.k_index()];
+  for (const auto& t : m.lin)
+    f = cheb::add(f, cheb::scale(t.weight.empty() ? D[t.d] : product_sparse(t.weight, D[t.d]), t.coef));
+  for (const auto& t : m.quad) {
+    f = cheb::add(f, cheb::scale(cheb::product(Dbar[t.d1], D[t.d2]), t.coef));
+    f = cheb::add(f, cheb::scale(cheb::product(Dbar[t.d2], D[t.d1]), t.coef));
+  }
+  r.fun = std::move(f);
+  return r;
+}
+
+// a + s·b, rows and function coefficients (the shorter series padded with zeros).
+template <class S>
+Value<S> add_scaled(Value<S> a, const Value<S>& b, const S& s) {
+  assert(a.rows.size() == b.rows.size());
+  for (std::size_t i = 0; i < a.rows.size(); ++i) a.rows[i] = a.rows[i] + s * b.rows[i];
+  a.fun = cheb::add(a.fun, cheb::scale(b.fun, s));
+  return a;
+}
+
 }  // namespace porecert::model

@@ -105,13 +105,35 @@ std::string summary(const NKBounds& b) {
 }
 
 // Proof in double intervals about a double candidate.
+// The predictor of an interval box (M3.11) about R0 = the double nearest the box midpoint.
+template <arith::Interval I>
+RPredictor<I> predictor_of(const model::ModelSpec& spec, const I& R, const candidate::Vec& tangent) {
+  const double R0 = arith::mid_double(arith::to_id(R));
+  RPredictor<I> p;
+  for (double v : tangent) p.tangent.emplace_back(v);
+  p.delta = R - I(R0);
+  p.at_R0 = model::build_model<I>(spec, I(R0));
+  p.at_0 = model::build_model<I>(spec, I(0));
+  p.at_1 = model::build_model<I>(spec, I(1));
+  return p;
+}
+
+// A box of R (not a point) with a tangent of the same length as the candidate: use the predictor.
+template <arith::Interval I>
+bool use_predictor(const I& R, const candidate::Vec& x, const candidate::Vec& tangent) {
+  return !tangent.empty() && tangent.size() == x.size() && R.lower() < R.upper();
+}
+
 CertifyOutcome prove_double(const model::ModelSpec& spec, const std::string& lo, const std::string& hi,
-                            const candidate::Vec& x) {
+                            const candidate::Vec& x, const candidate::Vec& tangent = {}) {
   CertifyOutcome out;
   const Id R = read_R<Id>(lo, hi);
   std::vector<Id> xb(x.begin(), x.end());
   const auto mdl = model::build_model<Id>(spec, R);
-  const auto r = nk_verify(mdl, xb);
+  const bool pred = use_predictor(R, x, tangent);
+  const auto r = pred ? nk_verify(mdl, xb, predictor_of(spec, R, tangent)) : nk_verify(mdl, xb);
+  if (pred)
+    for (double v : tangent) out.tangent_hex.push_back(arith::hex_exact(v));
   take(out, r);
   out.model = spec;
   add_values(out, mdl, xb, r);
@@ -125,14 +147,17 @@ CertifyOutcome prove_double(const model::ModelSpec& spec, const std::string& lo,
 
 // Proof in MPFR intervals about an MPFR candidate.
 CertifyOutcome prove_mpfr(const model::ModelSpec& spec, const std::string& lo, const std::string& hi,
-                          const std::vector<Mpfr>& x, int bits) {
+                          const std::vector<Mpfr>& x, int bits, const candidate::Vec& tangent = {}) {
   arith::PrecisionScope scope(bits);
   CertifyOutcome out;
   const Im R = read_R<Im>(lo, hi);
   std::vector<Im> xb;
   for (const Mpfr& v : x) xb.emplace_back(v, v);
   const auto mdl = model::build_model<Im>(spec, R);
-  const auto r = nk_verify(mdl, xb);
+  const bool pred = !tangent.empty() && tangent.size() == x.size() && R.lower() < R.upper();
+  const auto r = pred ? nk_verify(mdl, xb, predictor_of(spec, R, tangent)) : nk_verify(mdl, xb);
+  if (pred)
+    for (double v : tangent) out.tangent_hex.push_back(arith::hex_exact(v));
   take(out, r);
   out.model = spec;
   add_values(out, mdl, xb, r);
@@ -226,6 +251,11 @@ std::optional<ReducedPick> reduced_pick(const CertifyRequest& req, double R) {
 }
 }  // namespace
 
+// Interval boxes with R_lo at or above this are tried with the reduced method first. Below it the
+// Newton-Kantorovich boxes (M3.11) are as wide and glue with each other; for injection the reduced
+// method's boxes were narrower than Newton-Kantorovich's in our runs (docs/sweep.md).
+constexpr double kReducedBoxFrom = 1;
+
 CertifyOutcome certify_berman(const CertifyRequest& req) {
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
@@ -239,8 +269,12 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     out.failure = "the reduced method rests on the symmetries of Berman's half-channel equation (docs/method.md §S)";
     return out;
   }
-  if (req.model.is_berman() &&
-      (req.method == "reduced" || (req.method == "auto" && Rint.lower() >= 40 && !req.start && req.branch == "I"))) {
+  // Boxes of R (sweeps): for suction the reduced method covers a wide box with one proof, so it goes
+  // first there too (docs/sweep.md).
+  const bool box = Rint.lower() < Rint.upper();
+  const bool reduced_box = box && Rint.lower() >= kReducedBoxFrom;
+  if (req.model.is_berman() && (req.method == "reduced" || (req.method == "auto" && !req.start && req.branch == "I" &&
+                                                            (Rint.lower() >= 40 || reduced_box)))) {
     const auto pick = reduced_pick(req, Rmid);
     if (!pick) {
       CertifyOutcome out;
@@ -325,11 +359,17 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
     if (polished.converged) x = polished.x;
   }
 
+  // First-order predictor over an interval box (M3.11): the branch tangent at the midpoint.
+  auto tangent_for = [&](const candidate::Vec& xc) {
+    if (!(Rint.lower() < Rint.upper())) return candidate::Vec{};
+    return candidate::tangent_in_R(md, model::build_model<double>(spec, 0.0), model::build_model<double>(spec, 1.0),
+                                   xc);
+  };
   // 3. Proof, with remedies.
   int bits = req.precision_bits;
   for (int attempt = 0; attempt < 14; ++attempt) {
     if (bits == 0 || bits == 53) {
-      out = prove_double(spec, req.R_lo, req.R_hi, x);
+      out = prove_double(spec, req.R_lo, req.R_hi, x, tangent_for(x));
     } else {
       arith::PrecisionScope scope(bits);
       const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(md, x));
@@ -337,7 +377,7 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
       double last = 0;
       const int steps = 2 + bits / 40;
       const auto xm = candidate::refine_mpfr(mm, x, lu, steps, &last);
-      out = prove_mpfr(spec, req.R_lo, req.R_hi, xm, bits);
+      out = prove_mpfr(spec, req.R_lo, req.R_hi, xm, bits, tangent_for(x));
     }
     log.insert(log.end(), out.log.begin(), out.log.end());
     if (out.certified) break;
@@ -362,7 +402,7 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
     const Eigen::PartialPivLU<arith::MatD> lu(candidate::truncated_jacobian(md, x));
     double last = 0;
     const auto xm = candidate::refine_mpfr(model::build_model<Mpfr>(spec, Mpfr(Rmid)), x, lu, 5, &last);
-    CertifyOutcome tight = prove_mpfr(spec, req.R_lo, req.R_hi, xm, b2);
+    CertifyOutcome tight = prove_mpfr(spec, req.R_lo, req.R_hi, xm, b2, tangent_for(x));
     log.push_back("relative width above " + std::to_string(req.target_rel_width) + " in double: " + tight.log.back());
     if (tight.certified) out = std::move(tight);
   }
@@ -372,15 +412,26 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
 }
 
 CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
-                              const std::vector<std::string>& candidate_hex, int precision_bits) {
-  return recheck_model(model::ModelSpec{}, R_lo, R_hi, candidate_hex, precision_bits);
+                              const std::vector<std::string>& candidate_hex, int precision_bits,
+                              const std::vector<std::string>& tangent_hex) {
+  return recheck_model(model::ModelSpec{}, R_lo, R_hi, candidate_hex, precision_bits, tangent_hex);
 }
 
 CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_lo, const std::string& R_hi,
-                             const std::vector<std::string>& candidate_hex, int precision_bits) {
+                             const std::vector<std::string>& candidate_hex, int precision_bits,
+                             const std::vector<std::string>& tangent_hex) {
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   CertifyOutcome out;
+  candidate::Vec tangent;
+  for (const auto& h : tangent_hex) {
+    const Id v = arith::from_decimal<Id>(h);
+    if (v.lower() != v.upper()) throw std::invalid_argument("tangent coefficient '" + h + "' is not a double");
+    tangent.push_back(v.lower());
+  }
+  if (!tangent.empty() && tangent.size() != candidate_hex.size())
+    throw std::invalid_argument("the tangent has " + std::to_string(tangent.size()) + " entries, the candidate " +
+                                std::to_string(candidate_hex.size()) + " (rule: equal lengths)");
   if (precision_bits <= 53) {
     candidate::Vec x;
     for (const auto& h : candidate_hex) {
@@ -388,7 +439,7 @@ CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_
       if (v.lower() != v.upper()) throw std::invalid_argument("candidate coefficient '" + h + "' is not a double");
       x.push_back(v.lower());
     }
-    out = prove_double(spec, R_lo, R_hi, x);
+    out = prove_double(spec, R_lo, R_hi, x, tangent);
   } else {
     arith::PrecisionScope scope(precision_bits);
     std::vector<Mpfr> x;
@@ -399,7 +450,7 @@ CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_
                                     std::to_string(precision_bits) + " bits");
       x.push_back(v.lower());
     }
-    out = prove_mpfr(spec, R_lo, R_hi, x, precision_bits);
+    out = prove_mpfr(spec, R_lo, R_hi, x, precision_bits, tangent);
   }
   out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   return out;

@@ -59,6 +59,9 @@ struct CertifyOutcome {
   Enclosure fp0, fppp0, fpp1, K;
   // Candidate, exactly: hex strings of the unknown layout [f'(0), K, u_0 .. u_{N-1}].
   std::vector<std::string> candidate_hex;
+  // Interval boxes of R: the tangent x1 of the first-order predictor (docs/method.md (M3.11)),
+  // exact hex strings, about R0 = the double nearest the box midpoint; empty otherwise.
+  std::vector<std::string> tangent_hex;
   double seconds = 0;
   Structure structure;                        // certified sign structure and branch label (when certified)
   arith::Id fp0_id, K_id, fpp1_id, fppp0_id;  // the value enclosures as double intervals
@@ -86,9 +89,11 @@ CertifyOutcome outcome_of(const ReducedResult& r);
 
 // Re-runs the proof on a stored candidate (hex strings) at the stored precision: no solver.
 CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
-                              const std::vector<std::string>& candidate_hex, int precision_bits);
+                              const std::vector<std::string>& candidate_hex, int precision_bits,
+                              const std::vector<std::string>& tangent_hex = {});
 // The same for any model spec (recheck_berman is this with the default spec).
 CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_lo, const std::string& R_hi,
-                             const std::vector<std::string>& candidate_hex, int precision_bits);
+                             const std::vector<std::string>& candidate_hex, int precision_bits,
+                             const std::vector<std::string>& tangent_hex = {});
 
 }  // namespace porecert::proof

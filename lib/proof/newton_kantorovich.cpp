@@ -159,14 +159,24 @@ double tail_estimate(const model::Model<Id>& m, const std::vector<Id>& xbar, lon
 
 namespace {
 template <arith::Interval I>
-NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& xbar);
+NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& xbar, const RPredictor<I>* pred);
 }  // namespace
 
 template <arith::Interval I>
 NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
+  return nk_verify(m, xbar, static_cast<const RPredictor<I>*>(nullptr));
+}
+template <arith::Interval I>
+NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar, const RPredictor<I>& p) {
+  if (p.tangent.size() != xbar.size()) throw std::invalid_argument("predictor tangent and candidate differ in length");
+  return nk_verify(m, xbar, &p);
+}
+
+template <arith::Interval I>
+NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar, const RPredictor<I>* pred) {
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   try {
-    return nk_verify_unguarded(m, xbar);
+    return nk_verify_unguarded(m, xbar, pred);
   } catch (const arith::nan_error& e) {
     // A candidate so large that a bound overflows (found by tests/test_adversarial.cpp): no proof,
     // and no crash either. The enclosures stay unset; certified = false says they mean nothing.
@@ -180,7 +190,7 @@ NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar) {
 
 namespace {
 template <arith::Interval I>
-NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& xbar) {
+NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& xbar, const RPredictor<I>* pred) {
   if (!m.well_formed()) throw std::invalid_argument("model is not square (rows != scalar unknowns)");
   const int ns = m.n_scalars();
   const int N = static_cast<int>(xbar.size()) - ns;
@@ -193,8 +203,12 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
   res.modes = N;
   // ---- double-interval copies for the Z bounds (docs/method.md §M3, mixed precision §M4) ----
   const model::Model<Id> md = model::convert<Id>(m, [](const I& v) { return to_id(v); });
+  // With a predictor the Z bounds are taken over the hull of x̄(R), R in the box (M3.11).
+  std::vector<I> xhull = xbar;
+  if (pred)
+    for (std::size_t i = 0; i < xbar.size(); ++i) xhull[i] = xbar[i] + pred->delta * pred->tangent[i];
   std::vector<Id> xd;
-  for (const I& v : xbar) xd.push_back(to_id(v));
+  for (const I& v : xhull) xd.push_back(to_id(v));
   const auto Dbar = model::lift(model::constants_of(md, xd), model::u_of(md, xd));
 
   // ---- How tail modes reach the finite block: functionals Φ_q and directions W_q (M3.9) ----
@@ -315,13 +329,29 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
     double z2 = 0;
     for (const auto& t : md.quad)
       z2 = up_add(z2, up_mul(up_mul(2.0, arith::mag_up(t.coef)), up_mul(ln.l1[t.d1], ln.l1[t.d2])));
-    res.bounds.Z2 = up_mul(res.bounds.A_norm, z2);
+    // D²F[b,h] has no boundary-row part (the rows are linear), so only the function columns of A
+    // act on it (docs/method.md (M3.10)): the row columns, which dominate ‖A‖, drop out.
+    double a_fun = 1;  // tail columns of A, as in A_norm
+    for (std::size_t q = 0; q < nq; ++q) a_fun = up_add(a_fun, up_mul(AW[q], tf.sup_up[q]));
+    a_fun = std::max(a_fun, arith::operator_norm1_up(MatD(A.rightCols(n - ns))));
+    res.bounds.Z2 = up_mul(a_fun, z2);
   }
   res.sup_lift = ln.sup;
 
   // ---- Y0: ‖A F(x̄)‖ in the candidate's own arithmetic (MPFR when the candidate is) ----
   {
-    const auto F = model::residual(m, xbar);
+    // Without a predictor F(x̄) over the box; with one, the mean-value form (M3.11)
+    // F(x̄(R), R) ∈ F(x̄, R0) + [R − R0] (DF(hull) x1 + F(hull; 1) − F(hull; 0)).
+    model::Value<I> F;
+    if (!pred) {
+      F = model::residual(m, xbar);
+    } else {
+      const auto Dh = model::lift(model::constants_of(m, xhull), model::u_of(m, xhull));
+      model::Value<I> G = model::derivative_apply(m, Dh, pred->tangent);
+      G = model::add_scaled(G, model::residual(pred->at_1, xhull), I(1));
+      G = model::add_scaled(G, model::residual(pred->at_0, xhull), I(-1));
+      F = model::add_scaled(model::residual(pred->at_R0, xbar), G, pred->delta);
+    }
     std::vector<I> top(n, I(0));
     for (int i = 0; i < ns; ++i) top[i] = F.rows[i];
     double bottom = 0;
@@ -345,9 +375,25 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
     res.failure = verdict.failure;
     return res;
   }
-  const double r_exist = verdict.existence_radius;
-  res.existence_radius = r_exist;
+  double r_exist = verdict.existence_radius;
   res.uniqueness_radius = verdict.uniqueness_radius;
+  if (pred) {  // radii about xbar for every R of the box (M3.11)
+    double t = 0;
+    for (const I& v : pred->tangent) t = up_add(t, arith::mag_up(v));
+    t = up_mul(t, arith::mag_up(pred->delta));
+    r_exist = up_add(r_exist, t);
+    if (std::isfinite(res.uniqueness_radius)) res.uniqueness_radius = R::sub_down(res.uniqueness_radius, t);
+    if (!(res.uniqueness_radius > r_exist)) {
+      char buf[240];
+      std::snprintf(buf, sizeof buf,
+                    "box too wide for a statement about the midpoint candidate: r+ - t = %.3g must exceed r- + t = "
+                    "%.3g (t = %.3g = |R - R0| |x1|)",
+                    res.uniqueness_radius, r_exist, t);
+      res.failure = buf;
+      return res;
+    }
+  }
+  res.existence_radius = r_exist;
   res.certified = true;
 
   // ---- C³ bounds and values of the true solution ----
@@ -365,5 +411,7 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
 
 template NKResult<Id> nk_verify<Id>(const model::Model<Id>&, const std::vector<Id>&);
 template NKResult<Im> nk_verify<Im>(const model::Model<Im>&, const std::vector<Im>&);
+template NKResult<Id> nk_verify<Id>(const model::Model<Id>&, const std::vector<Id>&, const RPredictor<Id>&);
+template NKResult<Im> nk_verify<Im>(const model::Model<Im>&, const std::vector<Im>&, const RPredictor<Im>&);
 
 }  // namespace porecert::proof

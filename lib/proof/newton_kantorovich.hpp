@@ -44,6 +44,23 @@ struct NKResult {
 template <arith::Interval I>
 NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar);
 
+// First-order predictor for an interval box of R (docs/method.md (M3.11)): the proof is about
+// x̄(R) = x̄ + (R − R0) x1 for each R of the box, x1 a (non-rigorous) tangent of the branch, so that
+// Y0 is of second order in the box width. Requires every model coefficient to be affine in R
+// (docs/models.md §0): ∂F/∂R = F(·; R = 1) − F(·; R = 0).
+template <arith::Interval I>
+struct RPredictor {
+  std::vector<I> tangent;             // x1, points in the unknown layout
+  I delta;                            // encloses R − R0 for every R of the box
+  model::Model<I> at_R0, at_0, at_1;  // the model at the point R0, at R = 0 and at R = 1
+};
+
+// As above for m over a box of R, with the predictor p. The stated radii are about the fixed
+// point xbar (= x̄(R0)) so that every consumer of a certificate may keep using xbar: existence
+// r₋ + t and uniqueness r₊ − t with t ≥ sup|R − R0| ‖x1‖; not certified when r₊ − t ≤ r₋ + t.
+template <arith::Interval I>
+NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar, const RPredictor<I>& p);
+
 // Upper bound of the tail part of Z₁ that does not depend on A: Σ |c| ‖g‖ ‖J^m T_k‖ for k ≥ N.
 // Used to pick N before the expensive steps.
 double tail_estimate(const model::Model<arith::Id>& m, const std::vector<arith::Id>& xbar, long N);
