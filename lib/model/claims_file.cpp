@@ -4,8 +4,11 @@
 
 #include <algorithm>
 #include <filesystem>
+#include <fstream>
 #include <set>
+#include <sstream>
 
+#include "arith/fp_env.hpp"
 #include "arith/interval.hpp"
 
 namespace porecert::model {
@@ -105,9 +108,18 @@ void parse_sign(const std::string& text, const std::string& field, Claim& c, con
 }  // namespace
 
 ClaimsFile read_claims_file(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw input_error("claims file '" + path + "': cannot be read");
+  std::stringstream ss;
+  ss << in.rdbuf();
+  return read_claims_text(ss.str(), path);
+}
+
+ClaimsFile read_claims_text(std::string_view text, const std::string& path) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   toml::table t;
   try {
-    t = toml::parse_file(path);
+    t = toml::parse(text, path);
   } catch (const toml::parse_error& e) {
     std::string where = e.source().begin ? " at line " + std::to_string(e.source().begin.line) : "";
     throw input_error("claims file '" + path + "'" + where + ": " + std::string(e.description()));
