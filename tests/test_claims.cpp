@@ -109,3 +109,44 @@ TEST_CASE("claims file bad input: exit 2 naming the key") {
   CHECK(r.rc == 2);
   CHECK(r.out.find("candidate sources") != std::string::npos);
 }
+
+TEST_CASE("claims reader: a key of the wrong type or of another kind of claim is refused, not ignored") {
+  // Found by tests/fuzz/fuzz_claims.cpp (docs/soundness.md §2): these were accepted and the key dropped,
+  // so `on = 1` judged the claim on [0, 1] and `about = 1` about the solution.
+  using porecert::model::input_error;
+  using porecert::model::read_claims_text;
+  const auto refusal = [](const std::string& text) -> std::string {
+    try {
+      (void)read_claims_text(text, "t.toml");
+    } catch (const input_error& e) {
+      return e.what();
+    }
+    return "(accepted)";
+  };
+  const std::string sign = "[[claim]]\nproperty = \"f' > 0\"\n", unique = "[[claim]]\nproperty = \"unique\"\n";
+  CHECK(refusal(head + sign + "on = 1\n").find("on: must be a string") != std::string::npos);
+  CHECK(refusal(head + unique + "radius = \"1e-3\"\nabout = 1\n").find("about: must be a string") != std::string::npos);
+  CHECK(refusal(head + "[[claim]]\nproperty = \"solutions found\"\nexactly = true\n")
+            .find("exactly: must be an integer") != std::string::npos);
+  CHECK(refusal(head + "modes = \"64\"\n" + sign).find("modes: must be an integer") != std::string::npos);
+  CHECK(refusal(head + "precision_bits = 128.0\n" + sign).find("precision_bits: must be an integer") !=
+        std::string::npos);
+  CHECK(refusal("[problem]\nR = \"5\"\n[candidate]\nbranch = \"I\"\ncsv = 1\n" + sign).find("csv: must be a string") !=
+        std::string::npos);
+  CHECK(refusal(head + "[[claim]]\nquantity = \"K\"\nbelow = \"6\"\nradius = \"1\"\n")
+            .find("key 'radius' does not belong to a bound claim") != std::string::npos);
+  CHECK(refusal(head + unique + "radius = \"1e-3\"\nquantity = 5\n").find("quantity or property, not both") !=
+        std::string::npos);
+  // The same claims with the keys written right are read, with the values given.
+  const auto f = read_claims_text(head + "modes = 64\nprecision_bits = 128\n" + sign + "on = \"(0, 0.5]\"\n" + unique +
+                                      "radius = \"1e-3\"\nabout = \"candidate\"\n" +
+                                      "[[claim]]\nproperty = \"solutions found\"\nexactly = 2\n",
+                                  "t.toml");
+  CHECK(f.modes == 64);
+  CHECK(f.precision_bits == 128);
+  REQUIRE(f.claims.size() == 3);
+  CHECK(f.claims[0].b == "0.5");
+  CHECK(!f.claims[0].a_closed);
+  CHECK(f.claims[1].about_candidate);
+  CHECK(f.claims[2].count == 2);
+}

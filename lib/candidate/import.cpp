@@ -5,6 +5,7 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
+#include "arith/fp_env.hpp"
 #include "model/berman.hpp"
 
 namespace porecert::candidate {
@@ -65,8 +66,16 @@ void times_linear_plus(std::array<S, 4>& p, int& deg, const S& z, const S& c) {
 }  // namespace
 
 Submission read_csv(const std::string& path) {
-  std::ifstream in(path);
-  if (!in) throw input_error("CSV '" + path + "': cannot read the file");
+  std::ifstream file(path, std::ios::binary);
+  if (!file) throw input_error("CSV '" + path + "': cannot read the file");
+  std::stringstream ss;
+  ss << file.rdbuf();
+  return read_csv_text(ss.str(), path);
+}
+
+Submission read_csv_text(std::string_view text, const std::string& path) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
+  std::istringstream in{std::string(text)};
   Submission s;
   s.kind = Submission::Kind::csv;
   s.source = path;

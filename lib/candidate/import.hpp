@@ -8,6 +8,7 @@
 #include <array>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "arith/interval.hpp"
@@ -36,6 +37,8 @@ struct Submission {
 // (x and f required, each at most once, any order), then rows of finite decimals, x strictly
 // increasing from exactly 0 to exactly 1, at least kCsvMinRows rows. Throws input_error.
 Submission read_csv(const std::string& path);
+// The same from the file's text; source names it in messages (fuzz target tests/fuzz/fuzz_csv.cpp).
+Submission read_csv_text(std::string_view text, const std::string& source);
 // Reads {"series_of": "f", "coefficients": ["...", ...]} (decimal or hex strings, at least 4).
 Submission read_chebyshev_json(const std::string& path);
 // Shooting data (decimal strings); throws input_error when not finite numbers.

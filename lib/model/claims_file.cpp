@@ -4,8 +4,12 @@
 
 #include <algorithm>
 #include <filesystem>
+#include <fstream>
+#include <map>
 #include <set>
+#include <sstream>
 
+#include "arith/fp_env.hpp"
 #include "arith/interval.hpp"
 
 namespace porecert::model {
@@ -50,6 +54,21 @@ void only_keys(const toml::table& t, const std::string& where, const std::set<st
   }
 }
 
+// A key of the wrong type is refused, never ignored in silence (toml++'s value<T>() would skip it, or
+// convert 64.0 or true to an integer).
+std::optional<std::string> string_key(const toml::table& t, const std::string& field, const char* key) {
+  const toml::node* n = t.get(key);
+  if (!n) return std::nullopt;
+  if (!n->is_string()) throw input_error(field + " " + key + ": must be a string");
+  return *n->value<std::string>();
+}
+std::optional<std::int64_t> integer_key(const toml::table& t, const std::string& field, const char* key) {
+  const toml::node* n = t.get(key);
+  if (!n) return std::nullopt;
+  if (!n->is_integer()) throw input_error(field + " " + key + ": must be an integer");
+  return *n->value<std::int64_t>();
+}
+
 // "[a, b)" and friends.
 void parse_interval(const std::string& text, const std::string& field, Claim& c) {
   const std::string t = trim(text);
@@ -72,13 +91,15 @@ void parse_interval(const std::string& text, const std::string& field, Claim& c)
     throw input_error(field + ": '" + text + "' (rule: 0 <= a < b <= 1)");
 }
 
-void parse_sign(const std::string& text, const std::string& field, Claim& c, const toml::table& t) {
+// field names the property key in messages, claim the [[claim]] table (for its key 'on').
+void parse_sign(const std::string& text, const std::string& field, const std::string& claim, Claim& c,
+                const toml::table& t) {
   std::string s = trim(text), on;
   if (const auto p = s.find(" on "); p != std::string::npos) {
     on = s.substr(p + 4);
     s = trim(s.substr(0, p));
   }
-  if (auto o = t["on"].value<std::string>()) {
+  if (auto o = string_key(t, claim, "on")) {
     if (!on.empty()) throw input_error(field + ": the interval is given twice (in property and in 'on')");
     on = *o;
   }
@@ -105,9 +126,18 @@ void parse_sign(const std::string& text, const std::string& field, Claim& c, con
 }  // namespace
 
 ClaimsFile read_claims_file(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw input_error("claims file '" + path + "': cannot be read");
+  std::stringstream ss;
+  ss << in.rdbuf();
+  return read_claims_text(ss.str(), path);
+}
+
+ClaimsFile read_claims_text(std::string_view text, const std::string& path) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   toml::table t;
   try {
-    t = toml::parse_file(path);
+    t = toml::parse(text, path);
   } catch (const toml::parse_error& e) {
     std::string where = e.source().begin ? " at line " + std::to_string(e.source().begin.line) : "";
     throw input_error("claims file '" + path + "'" + where + ": " + std::string(e.description()));
@@ -136,15 +166,16 @@ ClaimsFile read_claims_file(const std::string& path) {
   const auto dir = std::filesystem::path(path).parent_path();
   auto rel = [&](const std::string& p) { return std::filesystem::path(p).is_absolute() ? p : (dir / p).string(); };
   int sources = 0;
-  if (auto s = (*cand)["csv"].value<std::string>()) f.csv = rel(*s), ++sources;
-  if (auto s = (*cand)["chebyshev"].value<std::string>()) f.chebyshev = rel(*s), ++sources;
-  if (auto s = (*cand)["branch"].value<std::string>()) {
+  if (auto s = string_key(*cand, "[candidate]", "csv")) f.csv = rel(*s), ++sources;
+  if (auto s = string_key(*cand, "[candidate]", "chebyshev")) f.chebyshev = rel(*s), ++sources;
+  if (auto s = string_key(*cand, "[candidate]", "branch")) {
     if (*s != "I") throw input_error("[candidate] branch: '" + *s + "' (rule: \"I\"; other branches via start)");
     f.branch = *s;
     ++sources;
   }
-  if (const toml::array* st = (*cand)["start"].as_array()) {
-    if (st->size() != 2) throw input_error("[candidate] start: must be [f'(0), f'''(0)], two decimal strings");
+  if (const toml::node* sn = cand->get("start")) {
+    const toml::array* st = sn->as_array();
+    if (!st || st->size() != 2) throw input_error("[candidate] start: must be [f'(0), f'''(0)], two decimal strings");
     f.start =
         std::make_pair(decimal(*st->get(0), "[candidate] start[0]"), decimal(*st->get(1), "[candidate] start[1]"));
     ++sources;
@@ -152,12 +183,12 @@ ClaimsFile read_claims_file(const std::string& path) {
   if (sources != 1)
     throw input_error("[candidate]: " + std::to_string(sources) +
                       " candidate sources given (rule: exactly one of csv, chebyshev, start, branch)");
-  if (auto m = (*cand)["modes"].value<std::int64_t>()) {
+  if (auto m = integer_key(*cand, "[candidate]", "modes")) {
     if (*m != 0 && (*m < 8 || *m > 4000))
       throw input_error("[candidate] modes: " + std::to_string(*m) + " is outside 8..4000");
     f.modes = static_cast<int>(*m);
   }
-  if (auto p = (*cand)["precision_bits"].value<std::int64_t>()) {
+  if (auto p = integer_key(*cand, "[candidate]", "precision_bits")) {
     if (*p != 0 && (*p < 53 || *p > 4096))
       throw input_error("[candidate] precision_bits: " + std::to_string(*p) + " is outside 53..4096");
     f.precision_bits = static_cast<int>(*p);
@@ -177,7 +208,9 @@ ClaimsFile read_claims_file(const std::string& path) {
                  "about", "exactly", "at_least", "note"});
       Claim k;
       k.index = idx;
-      if (auto q = (*c)["quantity"].value<std::string>()) {
+      if (c->contains("quantity") && c->contains("property"))
+        throw input_error(field + ": give quantity or property, not both");
+      if (auto q = string_key(*c, field, "quantity")) {
         k.quantity = *q;
         if (std::find(std::begin(kValueKeys), std::end(kValueKeys), k.quantity) == std::end(kValueKeys))
           throw input_error(field + " quantity: '" + k.quantity +
@@ -204,7 +237,7 @@ ClaimsFile read_claims_file(const std::string& path) {
           k.bound = decimal(*(*c)[has_below ? "below" : "above"].node(), field + (has_below ? " below" : " above"));
           k.text = k.quantity + (k.below ? " < " : " > ") + k.bound;
         }
-      } else if (auto p = (*c)["property"].value<std::string>()) {
+      } else if (auto p = string_key(*c, field, "property")) {
         const std::string prop = trim(*p);
         if (prop == "unique") {
           k.kind = Claim::Kind::unique;
@@ -212,7 +245,7 @@ ClaimsFile read_claims_file(const std::string& path) {
           k.radius = decimal(*(*c)["radius"].node(), field + " radius");
           if (arith::from_decimal<arith::Id>(k.radius).lower() <= 0)
             throw input_error(field + " radius: '" + k.radius + "' (rule: > 0)");
-          const std::string about = (*c)["about"].value_or(std::string("solution"));
+          const std::string about = string_key(*c, field, "about").value_or("solution");
           if (about != "solution" && about != "candidate")
             throw input_error(field + " about: '" + about + "' (rule: \"solution\" or \"candidate\")");
           k.about_candidate = about == "candidate";
@@ -221,7 +254,7 @@ ClaimsFile read_claims_file(const std::string& path) {
           k.kind = Claim::Kind::solutions;
           const bool ex = c->contains("exactly"), al = c->contains("at_least");
           if (ex == al) throw input_error(field + ": property 'solutions found' needs exactly = N or at_least = N");
-          const auto v = (*c)[ex ? "exactly" : "at_least"].value<std::int64_t>();
+          const auto v = integer_key(*c, field, ex ? "exactly" : "at_least");
           if (!v || *v < 0 || *v > 100)
             throw input_error(field + std::string(ex ? " exactly" : " at_least") + ": must be an integer in 0..100");
           k.count = static_cast<int>(*v);
@@ -229,10 +262,28 @@ ClaimsFile read_claims_file(const std::string& path) {
           k.text = std::string(ex ? "exactly " : "at least ") + std::to_string(k.count) + " solutions found";
         } else {
           k.kind = Claim::Kind::sign;
-          parse_sign(prop, field + " property", k, *c);
+          parse_sign(prop, field + " property", field, k, *c);
         }
       } else {
         throw input_error(field + ": needs 'quantity' (a value key) or 'property'");
+      }
+      // A key of another kind of claim (a radius on a value claim, an interval on a bound) would be
+      // ignored in silence: refused.
+      static const std::map<Claim::Kind, std::pair<const char*, std::set<std::string>>> uses{
+          {Claim::Kind::value, {"value", {"quantity", "value", "tolerance", "relative_tolerance", "note"}}},
+          {Claim::Kind::bound, {"bound", {"quantity", "below", "above", "note"}}},
+          {Claim::Kind::sign, {"sign", {"property", "on", "note"}}},
+          {Claim::Kind::unique, {"unique", {"property", "radius", "about", "note"}}},
+          {Claim::Kind::solutions, {"solutions found", {"property", "exactly", "at_least", "note"}}}};
+      const auto& [kind_name, keys] = uses.at(k.kind);
+      for (auto&& [key, v] : *c) {
+        (void)v;
+        if (!keys.count(std::string(key.str()))) {
+          std::string list;
+          for (const auto& a : keys) list += (list.empty() ? "" : ", ") + a;
+          throw input_error(field + ": key '" + std::string(key.str()) + "' does not belong to a " + kind_name +
+                            " claim (keys of that kind: " + list + ")");
+        }
       }
       f.claims.push_back(k);
     }

@@ -4,6 +4,7 @@
 #pragma once
 #include <optional>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -46,7 +47,11 @@ struct ClaimsFile {
   std::vector<Claim> claims;
 };
 
+// Reads a claims file; throws input_error naming the table / key, the value and the rule.
 ClaimsFile read_claims_file(const std::string& path);
+// The same from the file's text; path names it in messages and is the directory that csv / chebyshev
+// paths are resolved against (fuzz target tests/fuzz/fuzz_claims.cpp).
+ClaimsFile read_claims_text(std::string_view text, const std::string& path);
 
 inline constexpr const char* kValueKeys[4] = {"f'(0)", "f'''(0)", "f''(1)", "K"};
 
