@@ -195,6 +195,11 @@ TEST_CASE("through the driver and the command line: verify --model pipe, certifi
   CHECK(r.out.find("--start") != std::string::npos);
   r = porecert_cli("verify --model pipe --R=1 --hartmann 2");
   CHECK(r.rc == 2);
+  r = porecert_cli("report " + path + " --html " + tmp + "/page.html");
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("not supported by report") != std::string::npos);
+  r = porecert_cli("sweep --model pipe --R=1");  // sweep takes no --model: CLI11 refuses it
+  CHECK(r.rc == 2);
   r = porecert_cli("branches --model pipe --R=1");
   CHECK(r.rc == 2);
   CHECK(r.out.find("--model") != std::string::npos);
