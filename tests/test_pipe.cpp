@@ -193,6 +193,19 @@ TEST_CASE("through the driver and the command line: verify --model pipe, certifi
   r = porecert_cli("verify --model pipe --R=1 --start=1,2");
   CHECK(r.rc == 2);
   CHECK(r.out.find("--start") != std::string::npos);
+  // A case file naming the pipe: certified from flow.reynolds; with [channel] (dimensional results
+  // of the channel models) refused.
+  spit(tmp + "/pipe.toml", "[model]\nname = \"pipe\"\n[flow]\nreynolds = \"-3\"\n");
+  r = porecert_cli("verify " + tmp + "/pipe.toml");
+  CHECK(r.rc == 0);
+  CHECK(r.out.find("porous pipe") != std::string::npos);
+  spit(tmp + "/pipe-channel.toml",
+       "[model]\nname = \"pipe\"\n[channel]\nhalf_width = \"10 mm\"\nwall_velocity = \"-0.15 m/s\"\n"
+       "kinematic_viscosity = \"1.5e-5 m^2/s\"\ndensity = \"1.2 kg/m^3\"\nmean_inlet_velocity = \"0 m/s\"\n"
+       "axial_position = \"150 mm\"\n");
+  r = porecert_cli("verify " + tmp + "/pipe-channel.toml");
+  CHECK(r.rc == 2);
+  CHECK(r.out.find("[channel]") != std::string::npos);
   r = porecert_cli("verify --model pipe --R=1 --hartmann 2");
   CHECK(r.rc == 2);
   r = porecert_cli("report " + path + " --html " + tmp + "/page.html");

@@ -184,6 +184,10 @@ int run_verify(const VerifyOptions& v) {
   if (!req.model.is_berman() && req.branch != "I" && !req.start)
     throw input_error("--branch: '" + req.branch + "' is for Berman's model only (rule: with --model " +
                       req.model.name + " use --branch I or --start a,b, or porecert branches)");
+  if (req.model.is_taylor() && channel)
+    throw input_error(
+        "[channel]: given with model 'pipe' (rule: the dimensional results of docs/units.md are for "
+        "the channel models; the pipe has none yet)");
   if (req.model.is_taylor() && req.start)
     throw input_error("--start: not for --model " + req.model.name +
                       " (rule: the porous pipe is certified on the branch continued from R = 0; use --branch I)");

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <stdexcept>
 
+#include "arith/fp_env.hpp"
 #include "arith/midrad.hpp"
 #include "model/taylor_operator.hpp"
 #include "proof/radii.hpp"
@@ -24,6 +25,7 @@ double up(const Id& v) { return v.upper(); }
 }  // namespace
 
 TaylorNKResult taylor_nk_verify(const model::TaylorModel<Id>& m, const std::vector<Id>& xbar) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   if (!m.well_formed()) throw std::invalid_argument("Taylor model '" + m.id + "' is not well formed");
   for (std::size_t j = 0; j < m.alpha.size(); ++j)
     if (!(m.alpha[j].lower() >= 0) || (j == 0 && !(m.alpha[0].lower() > 0)))
