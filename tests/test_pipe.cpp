@@ -221,3 +221,23 @@ TEST_CASE("through the driver and the command line: verify --model pipe, certifi
   CHECK(r.rc == 1);
   CHECK(r.out.find("NOT CERTIFIED") != std::string::npos);
 }
+
+TEST_CASE("strong injection: the MPFR remedy for Y0 (R = -26), checked against the reference and rechecked") {
+  proof::CertifyRequest req;
+  req.R_lo = req.R_hi = "-26";
+  req.model.name = "pipe";
+  const proof::CertifyOutcome o = proof::certify_berman(req);
+  REQUIRE(o.certified);
+  CHECK(o.method == "taylor-newton-kantorovich");
+  CHECK(o.precision_bits == 128);  // the double proof fails on Y0 here (docs/models.md §2)
+  const pipe_ref::Solution s = pipe_ref::solve(-26);
+  CHECK(inside(s.fp0, o.fp0_id));
+  CHECK(inside(s.fpp1, o.fpp1_id));
+  CHECK(inside(s.K, o.K_id));
+  const proof::CertifyOutcome re = proof::recheck_taylor(o.model, "-26", "-26", o.candidate_hex, o.precision_bits);
+  REQUIRE(re.certified);
+  CHECK(re.existence_radius <= o.existence_radius);
+  CHECK(boost::numeric::subset(re.K_id, o.K_id));
+  // The same candidate read as doubles is not the stored candidate: rejected as input.
+  CHECK_THROWS_AS(proof::recheck_taylor(o.model, "-26", "-26", o.candidate_hex, 53), std::invalid_argument);
+}

@@ -192,8 +192,10 @@ int run_verify(const VerifyOptions& v) {
     throw input_error("--start: not for --model " + req.model.name +
                       " (rule: the porous pipe is certified on the branch continued from R = 0; use --branch I)");
   if (req.model.is_taylor() && req.precision_bits > 53)
-    throw input_error("--precision: " + std::to_string(req.precision_bits) + " with --model " + req.model.name +
-                      " (rule: the Taylor-basis proof runs in double intervals, --precision 53 or automatic)");
+    throw input_error(
+        "--precision: " + std::to_string(req.precision_bits) + " with --model " + req.model.name +
+        " (rule: --precision 53 or automatic; automatic adds MPFR 128 bits for the candidate and Y0 when the double "
+        "proof fails on Y0, docs/models.md §2)");
   if (!req.model.is_berman() && (v.method == "direct" || v.method == "reduced"))
     throw input_error("--method: '" + v.method + "' is for Berman's model only (rule: with --model " + req.model.name +
                       " use newton or auto)");

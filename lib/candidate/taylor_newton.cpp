@@ -148,4 +148,26 @@ TaylorCandidate taylor_continuation(const std::function<TaylorModel<double>(doub
   return c;
 }
 
+std::vector<arith::Mpfr> taylor_refine_mpfr(const TaylorModel<arith::Mpfr>& m, const TaylorModel<double>& md,
+                                            const std::vector<double>& x0, int steps) {
+  using arith::Mpfr;
+  Eigen::VectorXd F;
+  Eigen::MatrixXd J;
+  system_of(md, x0, &F, &J);
+  const Eigen::PartialPivLU<Eigen::MatrixXd> lu(J);
+  std::vector<Mpfr> x(x0.begin(), x0.end());
+  const int ns = m.n_scalars();
+  const int n = static_cast<int>(x.size());
+  for (int s = 0; s < steps; ++s) {
+    const auto r = model::taylor_residual(m, x);
+    Eigen::VectorXd v(n);
+    for (int i = 0; i < ns; ++i) v(i) = r.rows[i].to_double();
+    for (int k = 0; k + ns < n; ++k) v(ns + k) = k < static_cast<int>(r.modes.size()) ? r.modes[k].to_double() : 0.0;
+    const Eigen::VectorXd dx = lu.solve(v);
+    if (!dx.allFinite()) break;
+    for (int i = 0; i < n; ++i) x[i] -= Mpfr(dx(i));
+  }
+  return x;
+}
+
 }  // namespace porecert::candidate

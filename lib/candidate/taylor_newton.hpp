@@ -8,6 +8,7 @@
 #include <string>
 #include <vector>
 
+#include "arith/mpfr_real.hpp"
 #include "model/taylor_model.hpp"
 
 namespace porecert::candidate {
@@ -36,5 +37,11 @@ TaylorCandidate taylor_solve_with_decay(const model::TaylorModel<double>& m, std
 // builds the model. Adaptive steps; modes raised by decay. log (optional) gets one line per stage.
 TaylorCandidate taylor_continuation(const std::function<model::TaylorModel<double>(double)>& make, double R_target,
                                     int n_max, std::vector<std::string>* log = nullptr);
+
+// MPFR refinement at the working precision: x ← x − J⁻¹ F(x) with F (rows, modes < N) in MPFR and
+// J the double Jacobian of md at the double candidate x0 (iterative refinement; steps iterations).
+std::vector<arith::Mpfr> taylor_refine_mpfr(const model::TaylorModel<arith::Mpfr>& m,
+                                            const model::TaylorModel<double>& md, const std::vector<double>& x0,
+                                            int steps);
 
 }  // namespace porecert::candidate

@@ -69,6 +69,46 @@ CertifyOutcome prove(const model::ModelSpec& spec, const std::string& lo, const 
   return out;
 }
 
+// The proof about an MPFR candidate at `bits` (Y₀ and the values in MPFR intervals).
+CertifyOutcome prove_mpfr(const model::ModelSpec& spec, const std::string& lo, const std::string& hi,
+                          const std::vector<arith::Mpfr>& x, int bits) {
+  arith::PrecisionScope scope(bits);
+  CertifyOutcome out;
+  out.method = kTaylorMethod;
+  out.model = spec;
+  out.precision_bits = bits;
+  const arith::Im R = boost::numeric::hull(arith::from_decimal<arith::Im>(lo), arith::from_decimal<arith::Im>(hi));
+  const auto m = model::build_taylor_model<arith::Im>(spec, R);
+  out.model_id = m.id;
+  std::vector<arith::Im> xb;
+  for (const auto& v : x) xb.emplace_back(v, v);
+  const TaylorNKResult r = taylor_nk_verify_mpfr(m, xb);
+  out.certified = r.certified;
+  out.failure = r.failure;
+  out.modes = r.modes;
+  out.Y0 = r.bounds.Y0;
+  out.Z0 = r.bounds.Z0;
+  out.Z1 = r.bounds.Z1;
+  out.Z2 = r.bounds.Z2;
+  out.A_norm = r.bounds.A_norm;
+  out.existence_radius = r.existence_radius;
+  out.uniqueness_radius = r.uniqueness_radius;
+  for (const auto& v : x) out.candidate_hex.push_back(arith::hex_exact(v));
+  out.log.push_back("Taylor basis, MPFR " + std::to_string(bits) + " bits for Y0, " + std::to_string(r.modes) +
+                    " modes: " + summary(r.bounds) + (r.certified ? " -> certified" : " -> " + r.failure));
+  if (!r.certified) return out;
+  for (int d = 0; d < 3 && d < static_cast<int>(r.sup_error.size()); ++d) out.c3_error[d] = r.sup_error[d];
+  out.c3_error[3] = r.sup_error.back();
+  for (const auto& k : m.values) {
+    const Id v = taylor_value_mpfr(m, xb, r, k);
+    out.values.push_back({k.key, k.meaning, enclose(v), v});
+    if (k.key == "F'(0)") out.fp0 = enclose(v), out.fp0_id = v;
+    if (k.key == "F''(1)") out.fpp1 = enclose(v), out.fpp1_id = v;
+    if (k.key == "K") out.K = enclose(v), out.K_id = v;
+  }
+  return out;
+}
+
 }  // namespace
 
 CertifyOutcome certify_taylor(const CertifyRequest& req) {
@@ -89,7 +129,7 @@ CertifyOutcome certify_taylor(const CertifyRequest& req) {
     return out;
   }
   if (req.precision_bits > 53) {
-    out.failure = "the Taylor-basis proof runs in double intervals only (--precision 53)";
+    out.failure = "the Taylor-basis proof takes --precision 53 or automatic (MPFR 128 bits for Y0 when needed)";
     return out;
   }
   auto make = [spec](double R) { return model::build_taylor_model<double>(spec, R); };
@@ -115,6 +155,19 @@ CertifyOutcome certify_taylor(const CertifyRequest& req) {
     log.insert(log.end(), out.log.begin(), out.log.end());
     if (out.certified) break;
     const bool z_problem = out.failure.rfind("Z = ", 0) == 0;
+    if (!z_problem && req.precision_bits == 0) {
+      // Y₀ is a double rounding floor (ill-conditioned rows for strong injection): MPFR candidate
+      // and residual (docs/models.md §2).
+      const int bits = 128;
+      arith::PrecisionScope scope(bits);
+      const auto mm = model::build_taylor_model<arith::Mpfr>(spec, arith::Mpfr(Rmid));
+      const auto xm = candidate::taylor_refine_mpfr(mm, md, x, 6);
+      CertifyOutcome o2 = prove_mpfr(spec, req.R_lo, req.R_hi, xm, bits);
+      log.push_back("remedy: more precision (MPFR " + std::to_string(bits) + " bits for the candidate and Y0)");
+      log.insert(log.end(), o2.log.begin(), o2.log.end());
+      out = std::move(o2);
+      break;
+    }
     if (!(z_problem && out.Z1 >= out.Z0 && modes() < n_max)) break;
     x = candidate::taylor_with_modes(md, x, std::min(n_max, modes() * 3 / 2));
     const auto p = candidate::taylor_newton(md, x);
@@ -130,9 +183,20 @@ CertifyOutcome recheck_taylor(const model::ModelSpec& spec, const std::string& R
                               const std::vector<std::string>& candidate_hex, int precision_bits) {
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
-  if (precision_bits > 53)
-    throw std::invalid_argument("candidate.precision_bits is " + std::to_string(precision_bits) +
-                                " but the Taylor-basis proof runs in double intervals only (rule: 53)");
+  if (precision_bits > 53) {
+    arith::PrecisionScope scope(precision_bits);
+    std::vector<arith::Mpfr> x;
+    for (const auto& h : candidate_hex) {
+      const arith::Im v = arith::from_decimal<arith::Im>(h);
+      if (v.lower() != v.upper())
+        throw std::invalid_argument("candidate coefficient '" + h + "' is not exact at " +
+                                    std::to_string(precision_bits) + " bits");
+      x.push_back(v.lower());
+    }
+    CertifyOutcome out = prove_mpfr(spec, R_lo, R_hi, x, precision_bits);
+    out.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+    return out;
+  }
   std::vector<double> x;
   for (const auto& h : candidate_hex) {
     const Id v = arith::from_decimal<Id>(h);

@@ -11,6 +11,7 @@
 namespace porecert::proof {
 
 using arith::Id;
+using arith::Im;
 using arith::MatD;
 using arith::MidRad;
 using Rnd = arith::rounded_nearest_outward;
@@ -24,8 +25,11 @@ double norm_up(const model::Poly<Id>& a) {
 double up(const Id& v) { return v.upper(); }
 }  // namespace
 
-TaylorNKResult taylor_nk_verify(const model::TaylorModel<Id>& m, const std::vector<Id>& xbar) {
-  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
+namespace {
+// The proof about xbar (double intervals); with mi, xi given, Y₀ is computed in MPFR intervals about
+// the MPFR candidate xi (xbar its outward double hull), everything else as without them.
+TaylorNKResult verify_core(const model::TaylorModel<Id>& m, const std::vector<Id>& xbar,
+                           const model::TaylorModel<Im>* mi, const std::vector<Im>* xi) {
   if (!m.well_formed()) throw std::invalid_argument("Taylor model '" + m.id + "' is not well formed");
   for (std::size_t j = 0; j < m.alpha.size(); ++j)
     if (!(m.alpha[j].lower() >= 0) || (j == 0 && !(m.alpha[0].lower() > 0)))
@@ -107,7 +111,27 @@ TaylorNKResult taylor_nk_verify(const model::TaylorModel<Id>& m, const std::vect
     res.bounds.Z1 = Rnd::mul_up(mu, Rnd::add_up(1.0, coupling));
   }
   // Y₀ = ‖A_N (F_N − WΦ F_tail)‖ + ‖F_tail‖.
-  {
+  if (mi) {
+    const auto F = model::taylor_residual(*mi, *xi);
+    std::vector<Im> top(n, Im(0));
+    for (int r = 0; r < nr; ++r) {
+      Im v = F.rows[r];
+      for (long l = N; l < static_cast<long>(F.modes.size()); ++l) {
+        Im ph(0);
+        for (int d = 0; d <= m.p; ++d) ph = ph + mi->rows[r].coef[d] * model::taylor_lift(*mi, d, l);
+        v = v - ph * F.modes[l];
+      }
+      top[r] = v;
+    }
+    double bottom = 0;
+    for (long l = 0; l < static_cast<long>(F.modes.size()); ++l) {
+      if (l < N)
+        top[ns + l] = F.modes[l];
+      else
+        bottom = Rnd::add_up(bottom, arith::mag_up(F.modes[l]));
+    }
+    res.bounds.Y0 = Rnd::add_up(apply_norm_up(A, top), bottom);
+  } else {
     const auto F = model::taylor_residual(m, xbar);
     std::vector<Id> top(n, Id(0));
     for (int r = 0; r < nr; ++r) {
@@ -151,10 +175,11 @@ TaylorNKResult taylor_nk_verify(const model::TaylorModel<Id>& m, const std::vect
   return res;
 }
 
-Id taylor_value(const model::TaylorModel<Id>& m, const std::vector<Id>& xbar, const TaylorNKResult& r,
-                const model::ValueKey& k) {
-  const Id ball(-r.existence_radius, r.existence_radius);
-  Id v;
+template <arith::Interval I>
+Id value_impl(const model::TaylorModel<I>& m, const std::vector<I>& xbar, const TaylorNKResult& r,
+              const model::ValueKey& k) {
+  const I ball(-r.existence_radius, r.existence_radius);
+  I v;
   if (k.d < 0) {
     v = xbar[m.k_index()] + ball;
   } else if (k.at == 0 && k.d < m.p && m.fixed_at_0[k.d]) {
@@ -163,10 +188,34 @@ Id taylor_value(const model::TaylorModel<Id>& m, const std::vector<Id>& xbar, co
     v = xbar[m.free_index(k.d)] + ball;
   } else {
     const auto G = model::taylor_derivatives(m, xbar);
-    const Id p = k.at == 1 ? model::taylor_at_1(G[k.d]) : model::taylor_eval(G[k.d], Id(k.at));
-    v = p + Id(-r.sup_error[k.d], r.sup_error[k.d]);
+    const I p = k.at == 1 ? model::taylor_at_1(G[k.d]) : model::taylor_eval(G[k.d], I(k.at));
+    v = p + I(-r.sup_error[k.d], r.sup_error[k.d]);
   }
-  return v * Id(k.scale);
+  return arith::to_id(v * I(k.scale));
+}
+}  // namespace
+
+TaylorNKResult taylor_nk_verify(const model::TaylorModel<Id>& m, const std::vector<Id>& xbar) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
+  return verify_core(m, xbar, nullptr, nullptr);
+}
+
+TaylorNKResult taylor_nk_verify_mpfr(const model::TaylorModel<Im>& m, const std::vector<Im>& xbar) {
+  const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
+  const auto md = model::convert_taylor<Id>(m, [](const Im& v) { return arith::to_id(v); });
+  std::vector<Id> xd;
+  for (const Im& v : xbar) xd.push_back(arith::to_id(v));
+  return verify_core(md, xd, &m, &xbar);
+}
+
+Id taylor_value_mpfr(const model::TaylorModel<Im>& m, const std::vector<Im>& xbar, const TaylorNKResult& r,
+                     const model::ValueKey& k) {
+  return value_impl(m, xbar, r, k);
+}
+
+Id taylor_value(const model::TaylorModel<Id>& m, const std::vector<Id>& xbar, const TaylorNKResult& r,
+                const model::ValueKey& k) {
+  return value_impl(m, xbar, r, k);
 }
 
 }  // namespace porecert::proof

@@ -42,4 +42,12 @@ TaylorNKResult taylor_nk_verify(const model::TaylorModel<arith::Id>& m, const st
 arith::Id taylor_value(const model::TaylorModel<arith::Id>& m, const std::vector<arith::Id>& xbar,
                        const TaylorNKResult& r, const model::ValueKey& k);
 
+// The same proof about an MPFR candidate (exact at the working precision): Y₀ is computed in MPFR
+// intervals, so it is no longer a double rounding floor; Z₀, Z₁, Z₂ in double intervals about the
+// candidate's outward double hull (they enclose DF at the exact candidate, docs/method.md §M4).
+TaylorNKResult taylor_nk_verify_mpfr(const model::TaylorModel<arith::Im>& m, const std::vector<arith::Im>& xbar);
+// taylor_value with the candidate's values computed in MPFR intervals (rounded outward to doubles).
+arith::Id taylor_value_mpfr(const model::TaylorModel<arith::Im>& m, const std::vector<arith::Im>& xbar,
+                            const TaylorNKResult& r, const model::ValueKey& k);
+
 }  // namespace porecert::proof
