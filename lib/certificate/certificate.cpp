@@ -116,7 +116,8 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
   if (!spec.is_berman()) j["problem"]["documentation"] = "docs/models.md";
   if (spec.is_taylor())
     j["problem"]["R_meaning"] =
-        "wall Reynolds number of the porous pipe (sign convention as Berman's: R > 0 suction, R < 0 injection); "
+        "wall Reynolds number of the porous pipe (R > 0 read as suction, R < 0 as injection, by analogy with "
+        "Berman's equation; docs/models.md §2); "
         "the certificate holds for every R in the interval";
   if (!p.scenario.empty()) j["scenario"] = p.scenario;
   if (!p.branch.empty()) j["branch_requested"] = p.branch;
