@@ -23,6 +23,10 @@ Action register_branches(CLI::App& app) {
   return [o] {
     proof::CertifyRequest req;
     req.model = spec_from(o->mo);
+    if (req.model.is_taylor())
+      throw input_error("--model: '" + req.model.name +
+                        "' is not supported by branches (rule: the porous pipe is certified by porecert verify "
+                        "--model pipe, on the branch continued from R = 0; docs/models.md §2)");
     std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", o->R);
     if (o->precision != 0 && (o->precision < 53 || o->precision > 4096))
       throw input_error("--precision: " + std::to_string(o->precision) + " is outside 53..4096 bits");

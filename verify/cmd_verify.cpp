@@ -14,6 +14,7 @@
 #include "proof/direct_candidate.hpp"
 #include "proof/fold.hpp"
 #include "proof/labelled.hpp"
+#include "proof/taylor_certify.hpp"
 
 namespace porecert::cli {
 
@@ -54,6 +55,10 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
       std::printf("  bounds:    R(s_lo) in [%.17g, %.17g], R(s_hi) in [%.17g, %.17g], dR/ds on S in [%.3g, %.3g]\n",
                   r.R_at_s_lo.lower(), r.R_at_s_lo.upper(), r.R_at_s_hi.lower(), r.R_at_s_hi.upper(), r.dR_ds.lower(),
                   r.dR_ds.upper());
+  } else if (o.method == proof::kTaylorMethod) {
+    std::printf("  candidate: %d Taylor coefficients about xi = 0, %s\n", o.modes, arith_text.c_str());
+    std::printf("  bounds:    Y0 = %.3g  Z0 = %.3g  Z1 = %.3g  Z2 = %.3g  |A| = %.3g\n", o.Y0, o.Z0, o.Z1, o.Z2,
+                o.A_norm);
   } else {
     std::printf("  candidate: %d Chebyshev modes, %s\n", o.modes, arith_text.c_str());
     std::printf("  bounds:    Y0 = %.3g  Z0 = %.3g  Z1 = %.3g  Z2 = %.3g\n", o.Y0, o.Z0, o.Z1, o.Z2);
@@ -71,6 +76,12 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
                 r.S_hi.c_str(), r.s_lo.c_str(), r.s_hi.c_str());
     std::printf("  tube half-widths |f^(k) - m_k| <= %.3g, %.3g, %.3g, %.3g for k = 0..3 (every eta)\n", o.c3_error[0],
                 o.c3_error[1], o.c3_error[2], o.c3_error[3]);
+  } else if (o.method == proof::kTaylorMethod) {
+    std::printf("  CERTIFIED: a true solution lies within %.3g of the candidate and is the only one within %.3g\n",
+                o.existence_radius, o.uniqueness_radius);
+    std::printf("             (l1 norm of (F'(0), K, Taylor coefficients of u = xi F''' + F''), docs/models.md §2)\n");
+    std::printf("  sup|F^(k) - candidate^(k)| on [0,1] <= %.3g, %.3g, %.3g for k = 0, 1, 2\n", o.c3_error[0],
+                o.c3_error[1], o.c3_error[2]);
   } else {
     std::printf("  CERTIFIED: a true solution lies within %.3g of the candidate and is the only one within %.3g\n",
                 o.existence_radius, o.uniqueness_radius);
@@ -173,6 +184,18 @@ int run_verify(const VerifyOptions& v) {
   if (!req.model.is_berman() && req.branch != "I" && !req.start)
     throw input_error("--branch: '" + req.branch + "' is for Berman's model only (rule: with --model " +
                       req.model.name + " use --branch I or --start a,b, or porecert branches)");
+  if (req.model.is_taylor() && channel)
+    throw input_error(
+        "[channel]: given with model 'pipe' (rule: the dimensional results of docs/units.md are for "
+        "the channel models; the pipe has none yet)");
+  if (req.model.is_taylor() && req.start)
+    throw input_error("--start: not for --model " + req.model.name +
+                      " (rule: the porous pipe is certified on the branch continued from R = 0; use --branch I)");
+  if (req.model.is_taylor() && req.precision_bits > 53)
+    throw input_error(
+        "--precision: " + std::to_string(req.precision_bits) + " with --model " + req.model.name +
+        " (rule: --precision 53 or automatic; automatic adds MPFR 128 bits for the candidate and Y0 when the double "
+        "proof fails on Y0, docs/models.md §2)");
   if (!req.model.is_berman() && (v.method == "direct" || v.method == "reduced"))
     throw input_error("--method: '" + v.method + "' is for Berman's model only (rule: with --model " + req.model.name +
                       " use newton or auto)");

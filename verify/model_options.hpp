@@ -15,7 +15,7 @@ struct ModelOptions {
 
 inline void add_model_options(CLI::App* sub, ModelOptions& o) {
   sub->add_option("--model", o.model,
-                  "Model: berman (default), full-channel, moving-walls, mhd, slip (docs/models.md)");
+                  "Model: berman (default), full-channel, moving-walls, mhd, slip, pipe (porous pipe; docs/models.md)");
   sub->add_option("--wall-ratio", o.wall_ratio, "full-channel: f(-1) = -a, decimal a (default 1)");
   sub->add_option("--expansion", o.expansion, "moving-walls: wall expansion ratio alpha (decimal)");
   sub->add_option("--hartmann", o.hartmann, "mhd: Hartmann number M >= 0 (decimal)");

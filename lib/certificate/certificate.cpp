@@ -7,6 +7,7 @@
 
 #include "arith/fp_env.hpp"
 #include "model/case_file.hpp"
+#include "proof/taylor_certify.hpp"
 
 namespace porecert::certificate {
 
@@ -69,6 +70,27 @@ void reduced_into(json& j, const proof::ReducedResult& r) {
                     {"taylor_steps", r.steps}};
 }
 
+// The Taylor-basis proof's own keys (docs/certificate.md, "taylor-newton-kantorovich"; docs/models.md
+// §2): they replace the Chebyshev space, error bounds and candidate layout.
+void taylor_into(json& j, const proof::CertifyOutcome& o) {
+  j["method"] = proof::kTaylorMethod;
+  j["space"] = {{"description",
+                 "x = (F'(0), K, u) with u = xi F''' + F'' = (xi F'')' = sum_n u_n xi^n, a Taylor series about "
+                 "xi = 0; norm |F'(0)| + |K| + sum_n |u_n| (l1 of Taylor coefficients, weight rho^n with rho = 1, "
+                 "so sup over [0,1] of any series is at most its norm; docs/models.md (V2.6))"},
+                {"weights", {{"F'(0)", 1}, {"K", 1}, {"u_n", "1 (rho = 1)"}}}};
+  j["error_bounds"] = {{"sup|F - Fbar|", up_str(o.c3_error[0])},
+                       {"sup|F' - Fbar'|", up_str(o.c3_error[1])},
+                       {"sup|F'' - Fbar''|", up_str(o.c3_error[2])},
+                       {"sup|u - ubar| (u = xi F''' + F'')", up_str(o.c3_error[3])}};
+  j["error_bounds_meaning"] = "sup over xi in [0,1] of the difference between the true solution and the candidate";
+  j["bounds"]["radii_polynomial"] =
+      "p(r) = Z2 r^2 - (1 - max(Z0, Z1)) r + Y0 < 0 at r = existence_radius (docs/models.md (V2.8)-(V2.9))";
+  j["candidate"]["layout"] =
+      "[F'(0), K, u_0, ..., u_{N-1}], u = xi F''' + F'' = sum u_n xi^n, F'' = sum u_n xi^n / (n + 1), F(0) = 0";
+  j["candidate"]["basis"] = "Taylor (monomials xi^n on [0,1], xi = r^2/a^2)";
+}
+
 json to_json(const Problem& p, const proof::CertifyOutcome& o) {
   json j;
   j["format"] = kFormat;
@@ -76,23 +98,27 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
   j["status"] = o.certified ? "certified" : "not certified";
   j["R"] = json::array({p.R_lo, p.R_hi});
   const model::ModelSpec& spec = o.model;
-  const auto m0 = model::build_model<double>(spec, 0.0);  // for the texts only
   json params = {{"R", json::array({p.R_lo, p.R_hi})}};
   json mparams = json::object();
   for (const auto& [k, v] : spec.params) {
     params[k] = v;
     mparams[k] = v;
   }
-  j["problem"] = {{"model", m0.id},
+  j["problem"] = {{"model", model::model_id_of(spec)},
                   {"model_name", spec.name},
                   {"model_parameters", mparams},
-                  {"equation", m0.equation_text},
+                  {"equation", model::equation_of(spec)},
                   {"boundary_conditions", model::boundary_conditions(spec)},
                   {"parameters", params},
                   {"R_meaning",
                    "wall Reynolds number V h / nu; R > 0 suction, R < 0 injection; the certificate holds for every R "
                    "in the interval"}};
   if (!spec.is_berman()) j["problem"]["documentation"] = "docs/models.md";
+  if (spec.is_taylor())
+    j["problem"]["R_meaning"] =
+        "wall Reynolds number of the porous pipe (R > 0 read as suction, R < 0 as injection, by analogy with "
+        "Berman's equation; docs/models.md §2); "
+        "the certificate holds for every R in the interval";
   if (!p.scenario.empty()) j["scenario"] = p.scenario;
   if (!p.branch.empty()) j["branch_requested"] = p.branch;
   if (o.certified && !o.structure.label.empty()) {
@@ -166,6 +192,7 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
         "midpoint of R; the radii are stated about the coefficients (docs/method.md (M3.11))";
   }
   if (o.reduced) reduced_into(j, *o.reduced);
+  if (o.method == proof::kTaylorMethod) taylor_into(j, o);
   j["log"] = o.log;
   j["seconds"] = o.seconds;
   j["caution"] = kCaution;
@@ -255,15 +282,22 @@ Stored parse(const json& j) {
       throw format_error(std::string("certificate: problem: ") + e.what());
     }
   }
-  const model::Model<double> m0 = model::build_model<double>(s.model, 0.0);
-  if (model != m0.id)
+  const std::string m0_id = model::model_id_of(s.model);
+  if (model != m0_id)
     throw format_error("certificate: problem.model is " + shown(prob.at("model")) +
-                       " but model_name/model_parameters give \"" + m0.id + "\"");
+                       " but model_name/model_parameters give \"" + m0_id + "\"");
   if (j.contains("branch") && j["branch"].is_string()) s.problem.branch = j["branch"].get<std::string>();
   const auto& cand = need(j, "candidate", json::value_t::object, "the candidate, exactly");
   // The precision range of `verify --precision`; the modes the proof accepts (nk_verify needs >= 8).
   s.precision_bits = int_in(cand, "precision_bits", 53, 4096, "candidate.precision_bits");
   s.method = j.contains("method") && j["method"].is_string() ? j["method"].get<std::string>() : "newton-kantorovich";
+  if ((s.method == proof::kTaylorMethod) != s.model.is_taylor())
+    throw format_error("certificate: method is " +
+                       shown(j.contains("method") ? j["method"] : json("newton-kantorovich")) +
+                       " but problem.model_name is \"" + s.model.name +
+                       "\" (rule: the porous pipe and only it is "
+                       "certified by \"" +
+                       proof::kTaylorMethod + "\")");
   if (s.method == "reduced-ivp") {
     s.eps = int_in(cand, "eps", -1, 1, "candidate.eps");
     s.nth = int_in(cand, "nth_zero", 1, 8, "candidate.nth_zero");
@@ -338,7 +372,7 @@ Stored parse(const json& j) {
   const auto& vals = need(j, "values", json::value_t::object, "the value enclosures");
   for (const auto& [k, v] : vals.items()) s.named_values.emplace_back(k, str_pair(v, "values." + k));
   if (s.status == "certified")
-    for (const auto& key : m0.values)
+    for (const auto& key : model::value_keys_of(s.model))
       if (!vals.contains(key.key)) throw format_error("certificate: values.\"" + key.key + "\" is missing");
   if (s.status == "certified" && s.model.half_channel())
     for (int i = 0; i < 4; ++i) {

@@ -2,18 +2,20 @@
 // factory building Model<S> from it (docs/models.md). The default spec is Berman's half-channel
 // problem, so callers that never name a model get exactly the old behaviour.
 #pragma once
+#include <cassert>
 #include <string>
 #include <type_traits>
 #include <utility>
 #include <vector>
 
 #include "arith/interval.hpp"
+#include "model/pipe.hpp"
 #include "model/variants.hpp"
 
 namespace porecert::model {
 
 struct ModelSpec {
-  std::string name = "berman";  // berman, full-channel, moving-walls, mhd, slip (model_names())
+  std::string name = "berman";  // berman, full-channel, moving-walls, mhd, slip, pipe (model_names())
   // Parameters by option name without dashes: wall-ratio, expansion, hartmann, slip.
   std::vector<std::pair<std::string, std::string>> params;
 
@@ -38,7 +40,9 @@ struct ModelSpec {
   }
   bool is_berman() const { return name == "berman" && params.empty(); }
   // Half-channel models share Berman's symmetry conditions f(0) = f''(0) = 0 and value keys.
-  bool half_channel() const { return name != "full-channel"; }
+  bool half_channel() const { return name != "full-channel" && name != "pipe"; }
+  // Models in a Taylor basis about 0 (lib/model/taylor_model.hpp; docs/models.md §2): the porous pipe.
+  bool is_taylor() const { return name == "pipe"; }
   bool operator==(const ModelSpec&) const = default;
 };
 
@@ -73,8 +77,10 @@ S decimal_as(const std::string& text) {
 
 // Model<S> of a checked spec at R (R may be an interval). Parameters enter as enclosures of the
 // user's decimals, so a proof with interval S holds for the exact decimal values.
+// Not for Taylor models (spec.is_taylor(): use build_taylor_model).
 template <class S>
 Model<S> build_model(const ModelSpec& spec, const S& R) {
+  assert(!spec.is_taylor());
   Model<S> m;
   if (spec.name == "full-channel") return full_channel(R, decimal_as<S>(spec.get("wall-ratio", "1")));
   if (spec.name == "mhd") {
@@ -94,5 +100,17 @@ Model<S> build_model(const ModelSpec& spec, const S& R) {
   }
   return m;
 }
+
+// TaylorModel<S> of a checked Taylor spec (spec.is_taylor()) at R (R may be an interval).
+template <class S>
+TaylorModel<S> build_taylor_model(const ModelSpec& spec, const S& R) {
+  assert(spec.is_taylor());
+  return pipe(R);
+}
+
+// The texts of a spec's model, whichever basis it uses (for certificates and messages).
+std::string model_id_of(const ModelSpec& spec);
+std::string equation_of(const ModelSpec& spec);
+std::vector<ValueKey> value_keys_of(const ModelSpec& spec);
 
 }  // namespace porecert::model

@@ -21,6 +21,12 @@ arith::Tri distinct(const CertifyOutcome& a, const CertifyOutcome& b) {
 BranchesOutcome certify_branches(const CertifyRequest& req) {
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   BranchesOutcome out;
+  if (req.model.is_taylor()) {  // no branch search in a Taylor basis: the branch from R = 0 only
+    out.solutions.push_back(certify_berman(req));
+    out.origins.push_back("continuation from R = 0 (Taylor basis, docs/models.md §2)");
+    out.region = "the branch continued from R = 0 only";
+    return out;
+  }
   const arith::Id R =
       boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
   const double Rm = arith::mid_double(R);

@@ -12,6 +12,7 @@
 #include "model/operator.hpp"
 #include "proof/branches.hpp"
 #include "proof/newton_kantorovich.hpp"
+#include "proof/taylor_certify.hpp"
 
 namespace porecert::proof {
 
@@ -257,6 +258,7 @@ std::optional<ReducedPick> reduced_pick(const CertifyRequest& req, double R) {
 constexpr double kReducedBoxFrom = 1;
 
 CertifyOutcome certify_berman(const CertifyRequest& req) {
+  if (req.model.is_taylor()) return certify_taylor(req);  // the porous pipe (docs/models.md §2)
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   const Id Rint = read_R<Id>(req.R_lo, req.R_hi);
@@ -333,6 +335,12 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
 }
 
 CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>& x_candidate) {
+  if (req.model.is_taylor()) {  // a Chebyshev candidate means nothing for a Taylor model
+    CertifyOutcome out;
+    out.model = req.model;
+    out.failure = "--model " + req.model.name + ": no Chebyshev candidate proof for a Taylor-basis model";
+    return out;
+  }
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   const Id Rint = read_R<Id>(req.R_lo, req.R_hi);
@@ -420,6 +428,10 @@ CertifyOutcome recheck_berman(const std::string& R_lo, const std::string& R_hi,
 CertifyOutcome recheck_model(const model::ModelSpec& spec, const std::string& R_lo, const std::string& R_hi,
                              const std::vector<std::string>& candidate_hex, int precision_bits,
                              const std::vector<std::string>& tangent_hex) {
+  if (spec.is_taylor()) {
+    if (!tangent_hex.empty()) throw std::invalid_argument("a Taylor-basis certificate has no tangent_hex");
+    return recheck_taylor(spec, R_lo, R_hi, candidate_hex, precision_bits);
+  }
   const arith::FpEnvScope fp_env;  // caller's rounding mode and flags restored on exit (arith/fp_env.hpp)
   const auto t0 = std::chrono::steady_clock::now();
   CertifyOutcome out;

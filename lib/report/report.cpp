@@ -70,6 +70,10 @@ Solution read_solution(const json& j, const std::string& where) {
   }
   s.certified = s.st.status == "certified";
   s.label = s.st.problem.branch;
+  if (s.st.model.is_taylor())  // the page draws Chebyshev profiles only (docs/report.md)
+    throw format_error("certificate: " + key_name(where, "method") + " is \"" + s.st.method + "\" (--model " +
+                       s.st.model.name +
+                       "): not supported by report (rule: Chebyshev-basis certificates; use porecert recheck)");
   if (!s.certified) return s;
   if (!j.contains("error_bounds") || !j["error_bounds"].is_object())
     throw format_error("certificate: key \"" + key_name(where, "error_bounds") + "\" is missing (rule: an object)");
