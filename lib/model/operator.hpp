@@ -77,24 +77,11 @@ Value<S> residual(const Model<S>& m, const std::vector<S>& x) {
   return v;
 }
 
-// DF(x̄) applied to the unit direction e_j of the unknown layout; Dbar = lift of x̄.
+// DF(x̄) h for the direction h with constants c = h^{(d)}(0), u-part u and K-part dK; Dbar = lift
+// of x̄. On interval types it encloses the exact value for all data inside the inputs.
 template <class S>
-Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, std::size_t j) {
-  const int ns = m.n_scalars();
-  std::array<S, 3> c{S(0), S(0), S(0)};
-  cheb::Series<S> u;
-  S dK(0);
-  if (static_cast<int>(j) < ns) {
-    if (static_cast<int>(j) == m.k_index()) {
-      dK = S(1);
-    } else {
-      for (int d = 0; d < 3; ++d)
-        if (m.free_index(d) == static_cast<int>(j)) c[d] = S(1);
-    }
-  } else {
-    u.assign(j - ns + 1, S(0));
-    u.back() = S(1);
-  }
+Value<S> directional(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, const std::array<S, 3>& c,
+                     const cheb::Series<S>& u, const S& dK) {
   const auto D = lift(c, u);
   Value<S> v;
   for (const auto& r : m.rows) {
@@ -114,31 +101,36 @@ Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 
   return v;
 }
 
-// DF(x̄) v for a direction v in the unknown layout (Dbar = lift of x̄): the column combination
-// Σ_j v_j DF(x̄) e_j in one pass. On interval types it encloses the exact product for all data
-// inside the inputs. Used by the R-predictor of interval boxes (docs/method.md (M3.11)).
+// DF(x̄) applied to the unit direction e_j of the unknown layout; Dbar = lift of x̄.
+template <class S>
+Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, std::size_t j) {
+  const int ns = m.n_scalars();
+  std::array<S, 3> c{S(0), S(0), S(0)};
+  cheb::Series<S> u;
+  S dK(0);
+  if (static_cast<int>(j) < ns) {
+    if (static_cast<int>(j) == m.k_index()) {
+      dK = S(1);
+    } else {
+      for (int d = 0; d < 3; ++d)
+        if (m.free_index(d) == static_cast<int>(j)) c[d] = S(1);
+    }
+  } else {
+    u.assign(j - ns + 1, S(0));
+    u.back() = S(1);
+  }
+  return directional(m, Dbar, c, u, dK);
+}
+
+// DF(x̄) v for a direction v in the unknown layout (Dbar = lift of x̄), in one pass. On interval
+// types it encloses the exact product for all data inside the inputs. Used by the R-predictor of
+// interval boxes (docs/method.md (M3.11)).
 template <class S>
 Value<S> derivative_apply(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, const std::vector<S>& v) {
   std::array<S, 3> c{S(0), S(0), S(0)};
   for (int d = 0; d < 3; ++d)
     if (!m.fixed_at_0[d]) c[d] = v[m.free_index(d)];
-  const auto D = lift(c, u_of(m, v));
-  Value<S> r;
-  for (const auto& row : m.rows) {
-    S s(0);
-    for (int d = 0; d < 3; ++d) s = s + row.coef[d] * cheb::value_at_1(D[d]);
-    r.rows.push_back(s);
-  }
-  cheb::Series<S> f = D[3];
-  f[0] = f[0] - v[m.k_index()];
-  for (const auto& t : m.lin)
-    f = cheb::add(f, cheb::scale(t.weight.empty() ? D[t.d] : product_sparse(t.weight, D[t.d]), t.coef));
-  for (const auto& t : m.quad) {
-    f = cheb::add(f, cheb::scale(cheb::product(Dbar[t.d1], D[t.d2]), t.coef));
-    f = cheb::add(f, cheb::scale(cheb::product(Dbar[t.d2], D[t.d1]), t.coef));
-  }
-  r.fun = std::move(f);
-  return r;
+  return directional(m, Dbar, c, u_of(m, v), v[m.k_index()]);
 }
 
 // a + s·b, rows and function coefficients (the shorter series padded with zeros).
