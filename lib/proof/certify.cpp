@@ -120,8 +120,8 @@ RPredictor<I> predictor_of(const model::ModelSpec& spec, const I& R, const candi
 }
 
 // A box of R (not a point) with a tangent of the same length as the candidate: use the predictor.
-template <arith::Interval I>
-bool use_predictor(const I& R, const candidate::Vec& x, const candidate::Vec& tangent) {
+template <arith::Interval I, class X>
+bool use_predictor(const I& R, const X& x, const candidate::Vec& tangent) {
   return !tangent.empty() && tangent.size() == x.size() && R.lower() < R.upper();
 }
 
@@ -155,7 +155,7 @@ CertifyOutcome prove_mpfr(const model::ModelSpec& spec, const std::string& lo, c
   std::vector<Im> xb;
   for (const Mpfr& v : x) xb.emplace_back(v, v);
   const auto mdl = model::build_model<Im>(spec, R);
-  const bool pred = !tangent.empty() && tangent.size() == x.size() && R.lower() < R.upper();
+  const bool pred = use_predictor(R, x, tangent);
   const auto r = pred ? nk_verify(mdl, xb, predictor_of(spec, R, tangent)) : nk_verify(mdl, xb);
   if (pred)
     for (double v : tangent) out.tangent_hex.push_back(arith::hex_exact(v));

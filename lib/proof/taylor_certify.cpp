@@ -31,6 +31,33 @@ std::string summary(const NKBounds& b) {
   return buf;
 }
 
+// Bounds, radii and (when certified) values of a Taylor-basis result in the common outcome form;
+// value_of(m, xb, r, key) encloses one reported value.
+template <class M, class X, class ValueOf>
+void take_taylor(CertifyOutcome& out, const M& m, const X& xb, const TaylorNKResult& r, ValueOf value_of) {
+  out.certified = r.certified;
+  out.failure = r.failure;
+  out.modes = r.modes;
+  out.Y0 = r.bounds.Y0;
+  out.Z0 = r.bounds.Z0;
+  out.Z1 = r.bounds.Z1;
+  out.Z2 = r.bounds.Z2;
+  out.A_norm = r.bounds.A_norm;
+  out.existence_radius = r.existence_radius;
+  out.uniqueness_radius = r.uniqueness_radius;
+  if (!r.certified) return;
+  // c3_error holds sup|F − F̄|, sup|F' − F̄'|, sup|F'' − F̄''| and sup|u − ū| (u = ξF''' + F'').
+  for (int d = 0; d < 3 && d < static_cast<int>(r.sup_error.size()); ++d) out.c3_error[d] = r.sup_error[d];
+  out.c3_error[3] = r.sup_error.back();
+  for (const auto& k : m.values) {
+    const Id v = value_of(m, xb, r, k);
+    out.values.push_back({k.key, k.meaning, enclose(v), v});
+    if (k.key == "F'(0)") out.fp0 = enclose(v), out.fp0_id = v;
+    if (k.key == "F''(1)") out.fpp1 = enclose(v), out.fpp1_id = v;
+    if (k.key == "K") out.K = enclose(v), out.K_id = v;
+  }
+}
+
 // The proof in double intervals about the double candidate x, in the common outcome form.
 CertifyOutcome prove(const model::ModelSpec& spec, const std::string& lo, const std::string& hi,
                      const std::vector<double>& x) {
@@ -42,30 +69,10 @@ CertifyOutcome prove(const model::ModelSpec& spec, const std::string& lo, const 
   out.model_id = m.id;
   const std::vector<Id> xb(x.begin(), x.end());
   const TaylorNKResult r = taylor_nk_verify(m, xb);
-  out.certified = r.certified;
-  out.failure = r.failure;
-  out.modes = r.modes;
-  out.Y0 = r.bounds.Y0;
-  out.Z0 = r.bounds.Z0;
-  out.Z1 = r.bounds.Z1;
-  out.Z2 = r.bounds.Z2;
-  out.A_norm = r.bounds.A_norm;
-  out.existence_radius = r.existence_radius;
-  out.uniqueness_radius = r.uniqueness_radius;
+  take_taylor(out, m, xb, r, [](const auto&... a) { return taylor_value(a...); });
   for (double v : x) out.candidate_hex.push_back(arith::hex_exact(v));
   out.log.push_back("Taylor basis, double intervals, " + std::to_string(r.modes) + " modes: " + summary(r.bounds) +
                     (r.certified ? " -> certified" : " -> " + r.failure));
-  if (!r.certified) return out;
-  // c3_error holds sup|F − F̄|, sup|F' − F̄'|, sup|F'' − F̄''| and sup|u − ū| (u = ξF''' + F'').
-  for (int d = 0; d < 3 && d < static_cast<int>(r.sup_error.size()); ++d) out.c3_error[d] = r.sup_error[d];
-  out.c3_error[3] = r.sup_error.back();
-  for (const auto& k : m.values) {
-    const Id v = taylor_value(m, xb, r, k);
-    out.values.push_back({k.key, k.meaning, enclose(v), v});
-    if (k.key == "F'(0)") out.fp0 = enclose(v), out.fp0_id = v;
-    if (k.key == "F''(1)") out.fpp1 = enclose(v), out.fpp1_id = v;
-    if (k.key == "K") out.K = enclose(v), out.K_id = v;
-  }
   return out;
 }
 
@@ -83,29 +90,10 @@ CertifyOutcome prove_mpfr(const model::ModelSpec& spec, const std::string& lo, c
   std::vector<arith::Im> xb;
   for (const auto& v : x) xb.emplace_back(v, v);
   const TaylorNKResult r = taylor_nk_verify_mpfr(m, xb);
-  out.certified = r.certified;
-  out.failure = r.failure;
-  out.modes = r.modes;
-  out.Y0 = r.bounds.Y0;
-  out.Z0 = r.bounds.Z0;
-  out.Z1 = r.bounds.Z1;
-  out.Z2 = r.bounds.Z2;
-  out.A_norm = r.bounds.A_norm;
-  out.existence_radius = r.existence_radius;
-  out.uniqueness_radius = r.uniqueness_radius;
+  take_taylor(out, m, xb, r, [](const auto&... a) { return taylor_value_mpfr(a...); });
   for (const auto& v : x) out.candidate_hex.push_back(arith::hex_exact(v));
   out.log.push_back("Taylor basis, MPFR " + std::to_string(bits) + " bits for Y0, " + std::to_string(r.modes) +
                     " modes: " + summary(r.bounds) + (r.certified ? " -> certified" : " -> " + r.failure));
-  if (!r.certified) return out;
-  for (int d = 0; d < 3 && d < static_cast<int>(r.sup_error.size()); ++d) out.c3_error[d] = r.sup_error[d];
-  out.c3_error[3] = r.sup_error.back();
-  for (const auto& k : m.values) {
-    const Id v = taylor_value_mpfr(m, xb, r, k);
-    out.values.push_back({k.key, k.meaning, enclose(v), v});
-    if (k.key == "F'(0)") out.fp0 = enclose(v), out.fp0_id = v;
-    if (k.key == "F''(1)") out.fpp1 = enclose(v), out.fpp1_id = v;
-    if (k.key == "K") out.K = enclose(v), out.K_id = v;
-  }
   return out;
 }
 
