@@ -295,14 +295,28 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
             "neither box's s bracket lies in the other's uniqueness set S, nor do the two sets S meet with one sign "
             "of dR/ds (docs/sweep.md (S3))";
     } else if (ci && cj) {
-      const auto hex = [](const json& b) {
-        return b["certificate"]["candidate"]["coefficients_hex"].get<std::vector<std::string>>();
+      // Distance of the proofs' centres at the shared R (S3): x̄ + (R − R0) x1 for a moving centre,
+      // with the radii about it; the fixed-centre radii otherwise.
+      const auto centre = [](const json& b) {
+        const json& c = b["certificate"]["candidate"];
+        proof::sweep::Centre x{c["coefficients_hex"].get<std::vector<std::string>>(), {}, ""};
+        if (b["certificate"].contains("moving_centre")) {
+          x.tangent = c["tangent_hex"].get<std::vector<std::string>>();
+          x.R0 = b["certificate"]["moving_centre"]["R0_hex"].get<std::string>();
+        }
+        return x;
       };
-      const double d = proof::sweep::candidate_distance_up(hex(boxes[i]), hex(boxes[i + 1]));
-      const arith::Tri g = proof::sweep::glued(
-          d, boxes[i]["existence_radius"].get<std::string>(), boxes[i]["uniqueness_radius"].get<std::string>(),
-          boxes[i + 1]["existence_radius"].get<std::string>(), boxes[i + 1]["uniqueness_radius"].get<std::string>());
-      j["candidate_distance"] = arith::decimal_upper(arith::Id(d), 17);
+      const auto radius = [](const json& b, const char* k) {
+        const json& c = b["certificate"];
+        return c.contains("moving_centre") ? c["moving_centre"][k].get<std::string>() : b[k].get<std::string>();
+      };
+      const double d =
+          proof::sweep::centre_distance_up(centre(boxes[i]), centre(boxes[i + 1]), boxes[i]["R"][1].get<std::string>());
+      const arith::Tri g = proof::sweep::glued(d, radius(boxes[i], "existence_radius"),
+                                               radius(boxes[i], "uniqueness_radius"),
+                                               radius(boxes[i + 1], "existence_radius"),
+                                               radius(boxes[i + 1], "uniqueness_radius"));
+      j["centre_distance"] = arith::decimal_upper(arith::Id(d), 17);
       j["glued"] = g == arith::Tri::yes ? "glued" : "not glued";
       if (g != arith::Tri::yes)
         j["reason"] = "distance + existence radius of one box is not below the uniqueness radius of the other (S3)";
