@@ -60,17 +60,22 @@ json prove_box(const Params& p, const std::string& lo, const std::string& hi) {
 
 }  // namespace
 
+// The header fields of every sweep (plain Berman sweeps have exactly these).
+static json base_identity(const Params& p) {
+  return {{"format", "porecert-sweep-journal"},
+          {"version", 1},
+          {"R", box_R(p.R_lo, p.R_hi)},
+          {"branch", p.branch},
+          {"width", p.width},
+          {"min_width", p.min_width},
+          {"stop_at_gap", p.stop_at_gap || fold_branch(p)},
+          {"max_modes", p.max_modes},
+          {"max_precision_bits", p.max_precision_bits},
+          {"software", "porecert 0.1.0"}};
+}
+
 json identity(const Params& p) {
-  json id = {{"format", "porecert-sweep-journal"},
-             {"version", 1},
-             {"R", box_R(p.R_lo, p.R_hi)},
-             {"branch", p.branch},
-             {"width", p.width},
-             {"min_width", p.min_width},
-             {"stop_at_gap", p.stop_at_gap || fold_branch(p)},
-             {"max_modes", p.max_modes},
-             {"max_precision_bits", p.max_precision_bits},
-             {"software", "porecert 0.1.0"}};
+  json id = base_identity(p);
   if (!p.model.is_berman()) {
     json mp = json::object();
     for (const auto& [k, v] : p.model.params) mp[k] = v;
