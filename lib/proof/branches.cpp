@@ -27,6 +27,7 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
     out.region =
         "no search: only the solution continued in R from the exact R = 0 solution F = 2 xi - xi^2 (Taylor basis, "
         "docs/models.md §2); other solutions of the pipe equation at this R, if any, were not looked for";
+    out.pairwise_disjoint = out.solutions[0].certified;  // one solution: nothing to separate
     return out;
   }
   const arith::Id R =
