@@ -292,3 +292,18 @@ TEST_CASE("report renders a pipe certificate: F and F' in xi enclose the exact R
   const auto q = porecert::report::certified_profile(read_json(tmp + "/p1.json"));
   CHECK(!(q.fp[64].lower() <= 1.0 && 1.0 <= q.fp[64].upper()));
 }
+
+TEST_CASE("check: sign claims for a slip wall use no f'(1) = 0") {
+  std::system(("mkdir -p " + tmp).c_str());
+  // With slip f'(1) = -beta f''(1) > 0 (f'' < 0 at the wall): "f' > 0 on [0, 1]" is true, and
+  // "f' < 0 on (0.5, 1]" false; Berman's f'(1) = 0 would wrongly reject the first.
+  spit(tmp + "/slip.toml",
+       "[problem]\nR = \"2\"\n[model]\nname = \"slip\"\nslip = \"0.2\"\n[candidate]\nbranch = \"I\"\n"
+       "[[claim]]\nproperty = \"f' > 0 on [0, 1]\"\n[[claim]]\nproperty = \"f'' < 0 on (0, 1]\"\n"
+       "[[claim]]\nproperty = \"f' < 0 on (0.5, 1]\"\n");
+  auto r = porecert_cli("check " + tmp + "/slip.toml");
+  CHECK(r.rc == 1);
+  CHECK(r.out.find("claim 1: accepted") != std::string::npos);
+  CHECK(r.out.find("claim 2: accepted") != std::string::npos);
+  CHECK(r.out.find("claim 3: rejected") != std::string::npos);
+}

@@ -101,10 +101,10 @@ Verdict sign_claim(const Claim& c, const CertifyOutcome& o) {
         name + "(1) = " + (c.order == 1 ? "0" : "1") + " exactly (boundary condition), so the claim fails at 1";
     return r;
   }
-  // The type I shortcut rests on Berman's structure classification; other models use the sign cover.
-  if (o.model.is_berman() && o.structure.label == "I" &&
-      ((c.order == 1 && c.positive && (b.upper() < 1 || !c.b_closed)) ||
-       (c.order == 2 && !c.positive && (a.lower() > 0 || !c.a_closed)))) {
+  // Type I (any half-channel model): f'' < 0 on (0,1] makes f' decrease to f'(1) >= 0 (f'(1) = 0, or
+  // -beta f''(1) > 0 with slip), so f' > 0 on [0,1) too.
+  if (o.structure.label == "I" && ((c.order == 1 && c.positive && (b.upper() < 1 || !c.b_closed)) ||
+                                   (c.order == 2 && !c.positive && (a.lower() > 0 || !c.a_closed)))) {
     r.holds = Tri::yes;
     r.evidence = "certified type I structure: " + o.structure.reason;
     return r;
