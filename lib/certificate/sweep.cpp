@@ -32,12 +32,16 @@ json prove_box(const Params& p, const std::string& lo, const std::string& hi) {
   // Over a box the value enclosures are as wide as the box: no MPFR re-proof for width (M5).
   req.target_rel_width = std::numeric_limits<double>::infinity();
   req.search_other_labels = false;  // an unclassified structure over a wide box: bisect instead
+  req.model = p.model;
   const proof::CertifyOutcome o = proof::certify_labelled(req);
   json cert = to_json(Problem{lo, hi, p.branch, ""}, o);
   cert.erase("seconds");  // the only field that differs between two runs of the same proof
   json r;
   r["R"] = box_R(lo, hi);
-  const bool label_ok = o.certified && o.structure.label == p.branch;
+  // Branch labels are Berman's half-channel sign structures (docs/branches.md); the full channel and
+  // the pipe carry none, so there a box is the solution continued from R = 0 (docs/sweep.md).
+  const bool labelled = p.model.half_channel();
+  const bool label_ok = o.certified && (labelled ? o.structure.label == p.branch : o.structure.label.empty());
   r["status"] = label_ok ? "certified" : "not certified";
   if (label_ok) {
     r["values"] = cert["values"];
@@ -56,7 +60,8 @@ json prove_box(const Params& p, const std::string& lo, const std::string& hi) {
 
 }  // namespace
 
-json identity(const Params& p) {
+// The header fields of every sweep (plain Berman sweeps have exactly these).
+static json base_identity(const Params& p) {
   return {{"format", "porecert-sweep-journal"},
           {"version", 1},
           {"R", box_R(p.R_lo, p.R_hi)},
@@ -67,6 +72,16 @@ json identity(const Params& p) {
           {"max_modes", p.max_modes},
           {"max_precision_bits", p.max_precision_bits},
           {"software", "porecert 0.1.0"}};
+}
+
+json identity(const Params& p) {
+  json id = base_identity(p);
+  if (!p.model.is_berman()) {
+    json mp = json::object();
+    for (const auto& [k, v] : p.model.params) mp[k] = v;
+    id["model"] = {{"name", p.model.name}, {"parameters", mp}};
+  }
+  return id;
 }
 
 Plan make_plan(const Params& p) {
@@ -369,7 +384,14 @@ std::vector<std::string> summary_lines(const json& doc) {
   const auto& c = doc["counts"];
   std::size_t glued = 0;
   for (const auto& j : doc["joints"]) glued += j["glued"] == "glued";
-  out.push_back("porecert sweep: branch " + doc["branch"].get<std::string>() +
+  std::string model;  // plain Berman sweeps name no model
+  if (doc["parameters"].contains("model")) {
+    model = doc["parameters"]["model"]["name"].get<std::string>();
+    for (const auto& [k, v] : doc["parameters"]["model"]["parameters"].items())
+      model += " " + k + " = " + v.get<std::string>();
+    model += ", ";
+  }
+  out.push_back("porecert sweep: " + model + "branch " + doc["branch"].get<std::string>() +
                 ", R = " + doc["R"][0].get<std::string>() + " .. " + doc["R"][1].get<std::string>());
   out.push_back("  boxes: " + std::to_string(c["certified"].get<std::size_t>()) + " certified of " +
                 std::to_string(c["boxes"].get<std::size_t>()) + " (from " +
