@@ -46,6 +46,22 @@ std::string key_name(const std::string& where, const std::string& key) {
   return where.empty() ? key : where + "." + key;
 }
 
+// The stored candidate enclosed in double intervals (MPFR coefficients rounded outward); at least 3.
+std::vector<Id> candidate_of(const std::vector<std::string>& hex, const std::string& where) {
+  std::vector<Id> x;
+  for (std::size_t i = 0; i < hex.size(); ++i) {
+    try {
+      x.push_back(arith::from_decimal<Id>(hex[i]));
+    } catch (const std::invalid_argument&) {
+      throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex[" + std::to_string(i) + "]") +
+                         " = \"" + hex[i] + "\" (rule: a hex or decimal number)");
+    }
+  }
+  if (x.size() < 3)
+    throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex") + " is too short");
+  return x;
+}
+
 double decimal_up(const json& j, const std::string& key, const std::string& where) {
   if (!j.is_string())
     throw format_error("certificate: " + key_name(where, key) + " is " + j.dump().substr(0, 60) +
@@ -82,17 +98,7 @@ Solution read_taylor(Solution s) {
     throw format_error("certificate: key \"" + key_name(where, "bounds") + "\" is missing (rule: an object)");
   s.half = false;
   s.pipe = true;
-  std::vector<Id> x;
-  for (std::size_t i = 0; i < s.st.candidate_hex.size(); ++i) {
-    try {
-      x.push_back(arith::from_decimal<Id>(s.st.candidate_hex[i]));
-    } catch (const std::invalid_argument&) {
-      throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex[" + std::to_string(i) + "]") +
-                         " = \"" + s.st.candidate_hex[i] + "\" (rule: a hex or decimal number)");
-    }
-  }
-  if (x.size() < 3)
-    throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex") + " is too short");
+  const std::vector<Id> x = candidate_of(s.st.candidate_hex, where);
   for (int i = 0; i <= kSamples; ++i) {
     const Id xi = Id(i) / Id(kSamples);   // exact: a dyadic
     Id F = x[0] * xi, Fp = x[0], p = xi;  // p = xi^(n+1)
@@ -186,17 +192,7 @@ Solution read_solution(const json& j, const std::string& where) {
     return s;
   }
   // The candidate, enclosed in double intervals (MPFR coefficients are rounded outward): [f'(0), K, u...].
-  std::vector<Id> x;
-  for (std::size_t i = 0; i < s.st.candidate_hex.size(); ++i) {
-    try {
-      x.push_back(arith::from_decimal<Id>(s.st.candidate_hex[i]));
-    } catch (const std::invalid_argument&) {
-      throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex[" + std::to_string(i) + "]") +
-                         " = \"" + s.st.candidate_hex[i] + "\" (rule: a hex or decimal number)");
-    }
-  }
-  if (x.size() < 3)
-    throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex") + " is too short");
+  const std::vector<Id> x = candidate_of(s.st.candidate_hex, where);
   const cheb::Series<Id> u(x.begin() + 2, x.end());
   const auto D = model::lift<Id>({Id(0), x[0], Id(0)}, u);
   // docs/report.md (R1): f(eta) in fbar(eta) +- e_0, f'(eta) in fbar'(eta) +- e_1 at each sample.
