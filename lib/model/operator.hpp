@@ -111,24 +111,35 @@ std::array<S, 3> direction_constants(const Model<S>& m, const std::vector<S>& v)
 }
 
 // DF(x̄) applied to the unit direction e_j of the unknown layout; Dbar = lift of x̄.
+// The unit direction e_j of the unknown layout as (constants at 0, u-part, K-part).
 template <class S>
-Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, std::size_t j) {
-  const int ns = m.n_scalars();
+struct UnitDirection {
   std::array<S, 3> c{S(0), S(0), S(0)};
   cheb::Series<S> u;
-  S dK(0);
+  S dK = S(0);
+};
+template <class S>
+UnitDirection<S> unit_direction(const Model<S>& m, std::size_t j) {
+  const int ns = m.n_scalars();
+  UnitDirection<S> e;
   if (static_cast<int>(j) < ns) {
     if (static_cast<int>(j) == m.k_index()) {
-      dK = S(1);
+      e.dK = S(1);
     } else {
       for (int d = 0; d < 3; ++d)
-        if (m.free_index(d) == static_cast<int>(j)) c[d] = S(1);
+        if (m.free_index(d) == static_cast<int>(j)) e.c[d] = S(1);
     }
   } else {
-    u.assign(j - ns + 1, S(0));
-    u.back() = S(1);
+    e.u.assign(j - ns + 1, S(0));
+    e.u.back() = S(1);
   }
-  return directional(m, Dbar, c, u, dK);
+  return e;
+}
+
+template <class S>
+Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, std::size_t j) {
+  const UnitDirection<S> e = unit_direction(m, j);
+  return directional(m, Dbar, e.c, e.u, e.dK);
 }
 
 // D²F[v, e_j]: the quadratic terms of (M1.2) with one factor the lift Dv of a direction v and the
@@ -136,17 +147,8 @@ Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 
 // DF(x̄) e_j + s D²F[v, e_j] exactly. Used for Z₀ over a box (docs/method.md (M3.14)).
 template <class S>
 Value<S> second_derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dv, std::size_t j) {
-  const int ns = m.n_scalars();
-  std::array<S, 3> c{S(0), S(0), S(0)};
-  cheb::Series<S> u;
-  if (static_cast<int>(j) < ns) {
-    for (int d = 0; d < 3; ++d)
-      if (m.free_index(d) == static_cast<int>(j)) c[d] = S(1);
-  } else {
-    u.assign(j - ns + 1, S(0));
-    u.back() = S(1);
-  }
-  const auto D = lift(c, u);
+  const UnitDirection<S> e = unit_direction(m, j);  // the K-part does not enter D²F
+  const auto D = lift(e.c, e.u);
   Value<S> v;
   v.rows.assign(m.rows.size(), S(0));
   v.fun = cheb::Series<S>{S(0)};
