@@ -49,6 +49,55 @@ TEST_CASE("profile tubes contain the independent shooting solution (R = 7.5 and 
   }
 }
 
+TEST_CASE("full channel, a = 1: the whole-channel tube contains the half-channel reference mirrored") {
+  // For a = 1 the full-channel solution is Berman's, odd in eta (docs/models.md §1): f(eta) =
+  // sign(eta) f_half(|eta|), f'(eta) = f_half'(|eta|), with f_half from the independent reference.
+  proof::CertifyRequest req;
+  req.R_lo = req.R_hi = "4";
+  req.model.name = "full-channel";
+  req.model.set("wall-ratio", "1");
+  const auto o = proof::certify_berman(req);
+  REQUIRE(o.certified);
+  const auto p = report::certified_profile(certificate::to_json({"4", "4", "I", ""}, o));
+  REQUIRE(p.eta.size() == 257);
+  CHECK(p.eta.front() == -1.0);
+  CHECK(p.eta[128] == 0.0);
+  const berman_ref::Real R("4");
+  const auto g = berman_ref::newton_double(4.0, 1.5, -3);
+  const auto sh = berman_ref::shoot_real(R, berman_ref::Real(g[0]), berman_ref::Real(g[1]));
+  for (int i : {0, 40, 100, 128, 170, 256}) {
+    CAPTURE(i);
+    const double eta = p.eta[i], sg = eta < 0 ? -1 : 1;
+    const auto y =
+        berman_ref::integrate_berman<berman_ref::Real>(R, sh.a, sh.b, sh.steps, berman_ref::Real(std::fabs(eta)));
+    const double f = sg * static_cast<double>(y[0]), fp = static_cast<double>(y[1]);
+    // The reference is accurate to about 1e-40 (at the walls it gives f'(±1) ≈ 1e-73, where the page
+    // holds the exact 0): allow 1e-30 besides the rounding to double.
+    const double tol = 1e-30;
+    CHECK(p.f[i].lower() <= std::nextafter(f, INFINITY) + tol);
+    CHECK(std::nextafter(f, -INFINITY) - tol <= p.f[i].upper());
+    CHECK(p.fp[i].lower() <= std::nextafter(fp, INFINITY) + tol);
+    CHECK(std::nextafter(fp, -INFINITY) - tol <= p.fp[i].upper());
+    CHECK(arith::width_up(p.fp[i]) < 1e-9);
+  }
+}
+
+TEST_CASE("full channel, a = 0.5: the page draws the whole channel with f(-1) = -a") {
+  std::system(("mkdir -p " + tmp).c_str());
+  auto r = porecert_cli("verify --R=3 --model full-channel --wall-ratio 0.5 --json " + tmp + "/fc.json");
+  REQUIRE(r.rc == 0);
+  r = porecert_cli("report " + tmp + "/fc.json --html " + tmp + "/fc.html");
+  REQUIRE(r.rc == 0);
+  const std::string page = slurp(tmp + "/fc.html");
+  CHECK(page.find("id=\"plot-u\"") != std::string::npos);
+  CHECK(page.find("id=\"profile-table\"") != std::string::npos);
+  CHECK(page.find("walls at -1 and 1") != std::string::npos);
+  const auto p = report::certified_profile(nlohmann::json::parse(slurp(tmp + "/fc.json")));
+  CHECK(p.f.front().lower() == -0.5);  // f(-1) = -a exactly (R2)
+  CHECK(p.f.front().upper() == -0.5);
+  CHECK(p.f.back().lower() == 1.0);
+}
+
 TEST_CASE("report of the demo case: elements, dimensional rows, cautions, no network") {
   std::system(("rm -rf " + tmp + " && mkdir -p " + tmp).c_str());
   REQUIRE(porecert_cli("verify " PORECERT_SOURCE_DIR "/cases/membrane-module.toml --json " + tmp + "/c.json").rc == 0);

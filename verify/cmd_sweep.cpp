@@ -132,8 +132,8 @@ int run_sweep(const SweepOptions& v) {
                       " sweep --branch I, the branch continued from R = 0; docs/models.md §6)");
   p.width = v.width == "auto" ? v.width : check_width("--width", v.width);
   p.min_width = check_width("--min-width", v.min_width);
-  if (p.width != "auto" && arith::tri_less(arith::from_decimal<arith::Id>(p.width), arith::from_decimal<arith::Id>(p.min_width)) ==
-      arith::Tri::yes)
+  if (p.width != "auto" && arith::tri_less(arith::from_decimal<arith::Id>(p.width),
+                                           arith::from_decimal<arith::Id>(p.min_width)) == arith::Tri::yes)
     throw input_error("--min-width: " + p.min_width + " exceeds --width " + p.width + " (rule: min-width <= width)");
   p.stop_at_gap = v.stop_at_gap;
   if (v.jobs < 0 || v.jobs > 256) throw input_error("--jobs: " + std::to_string(v.jobs) + " is outside 1..256");
@@ -299,7 +299,9 @@ Action register_sweep(CLI::App& app) {
   sub->add_option("--jobs", v->jobs, "Threads (default: the number of cores)");
   sub->add_flag("--resume", v->resume, "Continue the interrupted sweep recorded in the journal");
   sub->add_option("--journal", v->journal, "Journal file (default: JSON path + .journal, or porecert-sweep.journal)");
-  sub->add_option("--width", v->width, "Width of the initial boxes, or auto (default: 0.25, and 1 for type I boxes of Berman's problem at R >= 1; docs/sweep.md S2)");
+  sub->add_option("--width", v->width,
+                  "Width of the initial boxes, or auto (default: 0.25, and 1 for type I boxes of Berman's problem at R "
+                  ">= 1; docs/sweep.md S2)");
   sub->add_option("--min-width", v->min_width,
                   "A box narrower than this that fails is reported as a gap (default 1e-5)");
   sub->add_flag("--stop-at-gap", v->stop_at_gap, "Stop at the first gap (always on for II and III)");

@@ -344,8 +344,7 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
           r = c["moving_centre"]["existence_radius"].get<std::string>();
         }
         const std::string Rj = boxes[i]["R"][1].get<std::string>();
-        const auto p =
-            proof::sweep::berman_chart_point(x, arith::from_decimal<arith::Id>(r).upper(), Rj);
+        const auto p = proof::sweep::berman_chart_point(x, arith::from_decimal<arith::Id>(r).upper(), Rj);
         const json& rc = rd["certificate"]["candidate"];
         const bool fp_pos = c.contains("structure") && c["structure"].value("flow_reversal", "") == "no";
         g = p_model_berman && proof::sweep::glued_mixed(p, fp_pos, rc.value("eps", 0), rc.value("nth_zero", 0),
@@ -379,10 +378,9 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
       };
       const double d =
           proof::sweep::centre_distance_up(centre(boxes[i]), centre(boxes[i + 1]), boxes[i]["R"][1].get<std::string>());
-      const arith::Tri g = proof::sweep::glued(d, radius(boxes[i], "existence_radius"),
-                                               radius(boxes[i], "uniqueness_radius"),
-                                               radius(boxes[i + 1], "existence_radius"),
-                                               radius(boxes[i + 1], "uniqueness_radius"));
+      const arith::Tri g =
+          proof::sweep::glued(d, radius(boxes[i], "existence_radius"), radius(boxes[i], "uniqueness_radius"),
+                              radius(boxes[i + 1], "existence_radius"), radius(boxes[i + 1], "uniqueness_radius"));
       j["centre_distance"] = arith::decimal_upper(arith::Id(d), 17);
       j["glued"] = g == arith::Tri::yes ? "glued" : "not glued";
       if (g != arith::Tri::yes)

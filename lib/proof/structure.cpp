@@ -132,10 +132,11 @@ Structure classify(const std::vector<std::array<cheb::Series<Id>, 4>>& vertices,
   char buf[320];
   if (type1) {
     st.label = "I";
-    std::snprintf(buf, sizeof buf,
-                  "certified: f''' < 0 on [0, %.3g] and f'' < 0 on [%.3g, 1]; with f''(0) = 0 and f'(1) >= 0 (f'(1) = 0, "
-                  "or -beta f''(1) > 0 with slip) this gives f'' < 0 on (0,1] and f' > 0 on [0,1)",
-                  eta1, eta1);
+    std::snprintf(
+        buf, sizeof buf,
+        "certified: f''' < 0 on [0, %.3g] and f'' < 0 on [%.3g, 1]; with f''(0) = 0 and f'(1) >= 0 (f'(1) = 0, "
+        "or -beta f''(1) > 0 with slip) this gives f'' < 0 on (0,1] and f' > 0 on [0,1)",
+        eta1, eta1);
     st.reason = buf;
   } else if (fp0.upper() < 0) {
     st.label = "III";

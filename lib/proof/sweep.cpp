@@ -121,8 +121,7 @@ arith::Tri glued_mixed(const ChartPoint& p, bool f_prime_positive, int eps, int 
                        const std::string& S_hi, const std::string& R_joint) {
   const Id Rc = arith::from_decimal<Id>(R_joint);
   const int sign_R = Rc.lower() > 0 ? 1 : Rc.upper() < 0 ? -1 : 0;
-  if (!f_prime_positive || !(p.fp0.lower() > 0) || sign_R == 0 || eps != sign_R || nth != 1)
-    return arith::Tri::unsure;
+  if (!f_prime_positive || !(p.fp0.lower() > 0) || sign_R == 0 || eps != sign_R || nth != 1) return arith::Tri::unsure;
   arith::PrecisionScope scope(1100);  // the stored S ends (at most 1024 bits) are exact here
   const double lo_up = arith::upper_up(arith::from_decimal<Im>(S_lo));
   const double hi_down = arith::lower_down(arith::from_decimal<Im>(S_hi));

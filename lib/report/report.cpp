@@ -11,6 +11,7 @@
 #include "certificate/certificate.hpp"
 #include "certificate/dimensional_block.hpp"
 #include "model/dimensional.hpp"
+#include "model/model_spec.hpp"
 #include "model/operator.hpp"
 
 namespace porecert::report {
@@ -40,6 +41,7 @@ struct Solution {
   bool half = true;                       // a half-channel model (the page's f'(0), f''(1), K columns)
   bool has_profile = false;               // f, fp above are filled
   bool pipe = false;                      // Taylor-basis pipe: f, fp are F(xi_i), F'(xi_i), xi = r²/a²
+  bool full = false;                      // full channel: f, fp at eta_i = -1 + i/kSamples, i = 0..2 kSamples
 };
 
 std::string key_name(const std::string& where, const std::string& key) {
@@ -120,6 +122,28 @@ Solution read_taylor(Solution s) {
   return s;
 }
 
+// The full channel (docs/models.md §1): the candidate is g(x) = f(eta) on x = (eta + 1)/2 in the
+// model's own layout, so f(eta_i) = g(x_i) and f'(eta_i) = g'(x_i)/2 at eta_i = -1 + i/kSamples,
+// i = 0..2 kSamples; the error bounds are g's, and g's bound on g' also bounds f' = g'/2 (docs/report.md (R4)).
+Solution read_full_channel(Solution s) {
+  const std::vector<Id> x = candidate_of(s.st.candidate_hex, s.where);
+  const model::Model<Id> m = model::build_model<Id>(s.st.model, Id(0));  // fixed constants do not depend on R
+  const auto D = model::lift(model::constants_of(m, x), model::u_of(m, x));
+  for (int i = 0; i <= 2 * kSamples; ++i) {
+    const Id xi = Id(i) / Id(2 * kSamples);  // exact: a dyadic
+    s.f.push_back(cheb::eval(D[0], xi) + Id(-s.err[0], s.err[0]));
+    s.fp.push_back(cheb::eval(D[1], xi) / Id(2) + Id(-s.err[1], s.err[1]));
+  }
+  // f(-1) = -a, f(1) = 1, f'(+-1) = 0 hold exactly for the true solution: intersect (R2).
+  s.f.front() = Id(0) - arith::from_decimal<Id>(s.st.model.get("wall-ratio", "1"));
+  s.f.back() = Id(1);
+  s.fp.front() = Id(0);
+  s.fp.back() = Id(0);
+  s.full = true;
+  s.has_profile = true;
+  return s;
+}
+
 Solution read_solution(const json& j, const std::string& where) {
   Solution s;
   s.j = j;
@@ -149,7 +173,7 @@ Solution read_solution(const json& j, const std::string& where) {
     throw format_error("certificate: key \"" + key_name(where, "bounds") + "\" is missing (rule: an object)");
   const bool reduced = s.st.method == "reduced-ivp";
   s.half = s.st.model.half_channel();
-  if (!s.half) return s;  // values by their own keys (values_section); no profile plot for this model
+  if (!s.half) return s.st.model.name == "full-channel" ? read_full_channel(std::move(s)) : s;
   for (const char* b : {"Y0", "Z0", "Z1", "Z2"})
     if (!reduced)
       if (!j["bounds"].contains(b) || !j["bounds"][b].is_string())
@@ -449,10 +473,12 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   // Dimensional plots only when there is exactly one certified solution with channel data.
   std::vector<const Solution*> cert;
   for (const auto& s : sols)  // at most six overlaid profiles, all of the first one's geometry (channel or pipe)
-    if (s.certified && s.has_profile && cert.size() < 6 && (cert.empty() || cert[0]->pipe == s.pipe))
+    if (s.certified && s.has_profile && cert.size() < 6 &&
+        (cert.empty() || (cert[0]->pipe == s.pipe && cert[0]->full == s.full)))
       cert.push_back(&s);
   if (cert.empty()) return "";
   const bool pipe = cert[0]->pipe;
+  const bool full = cert[0]->full;
   std::size_t ncert_all = 0;
   for (const auto& s : sols) ncert_all += s.certified;
   // Colours by label when the labels tell the curves apart, else by position.
@@ -465,6 +491,7 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   std::string pos_label = "eta = y/h  (0 centre plane, ±1 walls)", u_label = "f'(eta)  (u / U(x))",
               v_label = "f(eta)  (v / V)";
   DisplayUnit uu, vu, hu;
+  if (full) pos_label = "eta = y/h  (walls at -1 and 1)";
   if (pipe) {
     pos_label = "r/a  (0 axis, ±1 wall; sampled at xi = r²/a² = i/128)";
     u_label = "F'(xi)  (axial velocity shape)";
@@ -489,9 +516,10 @@ std::string profiles_section(const std::vector<Solution>& sols) {
         v = u;
     // Mirror to the whole channel: f' is even and f odd in eta (symmetric problem). The pipe: F(r²/a²)
     // is even in r; the drawing places sample xi_i at r/a = ±sqrt(xi_i) (position only, not a value).
+    // The full channel is sampled across the whole channel already (no mirror).
     for (int i = -kSamples; i <= kSamples; ++i) {
-      const int a = std::abs(i);
-      Id fp = s.fp[a], fv = i < 0 && !pipe ? Id(0) - s.f[a] : s.f[a];
+      const int a = full ? i + kSamples : std::abs(i);
+      Id fp = s.fp[a], fv = i < 0 && !pipe && !full ? Id(0) - s.f[a] : s.f[a];
       if (dim) {
         fp = model::axial_velocity(*s.channel, fp) * Id(uu.factor);
         fv = model::normal_velocity(*s.channel, fv) * Id(vu.factor);
@@ -539,10 +567,10 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   if (dim) o << "<th>u [m/s]</th><th>v [m/s]</th>";
   o << "</tr>\n";
   for (std::size_t k = 0; k < cert.size(); ++k)
-    for (int i : {0, 32, 64, 96, 128}) {
+    for (int i : full ? std::vector<int>{0, 64, 128, 192, 256} : std::vector<int>{0, 32, 64, 96, 128}) {
       const Solution& s = *cert[k];
       o << "<tr><td>" << esc(solution_name(s, static_cast<std::size_t>(cert[k] - sols.data()), sols.size()))
-        << "</td><td>" << num(double(i) / kSamples) << "</td><td class=\"iv\">" << ival(s.f[i])
+        << "</td><td>" << num(double(i) / kSamples - (full ? 1 : 0)) << "</td><td class=\"iv\">" << ival(s.f[i])
         << "</td><td class=\"iv\">" << ival(s.fp[i]) << "</td>";
       if (dim)
         o << "<td class=\"iv\">" << ival(model::axial_velocity(*s.channel, s.fp[i])) << "</td><td class=\"iv\">"
@@ -761,7 +789,7 @@ Profile certified_profile(const json& cert) {
   if (!s.certified)
     throw format_error("certificate: status is \"" + s.st.status + "\" (rule: a profile needs a proof)");
   Profile p;
-  for (int i = 0; i <= kSamples; ++i) p.eta.push_back(double(i) / kSamples);
+  for (std::size_t i = 0; i < s.f.size(); ++i) p.eta.push_back(double(i) / kSamples - (s.full ? 1 : 0));
   p.f = s.f;
   p.fp = s.fp;
   return p;

@@ -26,7 +26,8 @@ ReportInput load(const std::string& path);
 // needs (error_bounds, bounds, a readable candidate, dimensional inputs that do not match R).
 std::string render_html(const ReportInput& in, const std::string& source_name);
 
-// The profile enclosures the page draws, for one certified certificate: at eta_i = i/128 (exact),
+// The profile enclosures the page draws, for one certified certificate: at eta_i = i/128 (exact;
+// the pipe: xi_i = i/128), i = 0..128, or for the full channel eta_i = -1 + i/128, i = 0..256,
 // f(eta_i) and f'(eta_i) enclose the true solution's values (docs/report.md (R1)-(R2)).
 struct Profile {
   std::vector<double> eta;
