@@ -36,4 +36,20 @@ inline std::string slurp(const std::string& path) {
 
 inline void spit(const std::string& path, const std::string& text) { std::ofstream(path, std::ios::binary) << text; }
 
+// `porecert verify VERIFY_ARGS --json DIR/STEM.json`, then `porecert report` of it to DIR/STEM.html.
+// Returns the page, or "" with the failing command's output in *log when either step fails.
+inline std::string verify_and_report(const std::string& verify_args, const std::string& dir, const std::string& stem,
+                                     std::string* log) {
+  shell("mkdir -p " + dir);
+  const std::string json = dir + "/" + stem + ".json", html = dir + "/" + stem + ".html";
+  for (const std::string& cmd : {"verify " + verify_args + " --json " + json, "report " + json + " --html " + html}) {
+    const Run r = porecert_cli(cmd);
+    if (r.rc != 0) {
+      *log = cmd + ": exit " + std::to_string(r.rc) + "\n" + r.out;
+      return "";
+    }
+  }
+  return slurp(html);
+}
+
 }  // namespace porecert::test
