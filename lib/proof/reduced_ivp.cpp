@@ -8,6 +8,7 @@
 
 #include "candidate/reduced_shooting.hpp"
 #include "model/berman_reduced.hpp"
+#include "proof/lohner.hpp"
 
 namespace porecert::proof {
 
@@ -61,6 +62,14 @@ struct StepData {
   std::array<I, 8> E;               // order p+1 coefficient over the step (remainder)
   std::array<I, 8> B;               // state over [t0, t1]
   std::array<I, 8> y1;              // state at t1
+  // Lohner data (S14), when the run keeps a QR representation: the state at t0 is in x̂ + A r; cc
+  // the Taylor coefficients at x̂, Dc[(i N + j)(p + 1) + k] the gradient of coefficient k of
+  // component i over the hull of the set, N = components + 1 (s).
+  int N = 0;
+  std::array<std::vector<I>, 8> cc;
+  std::vector<I> Dc;
+  std::vector<double> A;
+  std::vector<I> r;
 };
 
 template <Interval I>
@@ -151,7 +160,25 @@ I eval_in_step(const StepData<I>& st, int j, int p, const I& tt) {
   I tau = tt - I(st.t0);
   const I lo = arith::make_unchecked<I>(arith::unchecked, arith::scalar_of<I>(0), st.H.upper());
   tau = boost::numeric::intersect(tau, lo);
-  return horner(st.c[j], p, tau) + tau_pow(tau, p + 1) * st.E[j];
+  const I plain = horner(st.c[j], p, tau) + tau_pow(tau, p + 1) * st.E[j];
+  if (st.N == 0) return plain;
+  // Mean-value form about the centre (S14) at τ: Ψ_τ(x̂) + τ^{p+1} E + (DΨ_τ A) r.
+  const int N = st.N;
+  I acc = horner(st.cc[j], p, tau) + tau_pow(tau, p + 1) * st.E[j];
+  std::vector<I> Jrow(N);
+  for (int q = 0; q < N; ++q) {
+    I a = st.Dc[(j * N + q) * (p + 1) + p];
+    for (int k = p - 1; k >= 0; --k) a = a * tau + st.Dc[(j * N + q) * (p + 1) + k];
+    Jrow[q] = a;
+  }
+  for (int m = 0; m < N; ++m) {
+    I jm(0);
+    for (int q = 0; q < N; ++q)
+      if (st.A[q * N + m] != 0.0) jm = jm + Jrow[q] * I(st.A[q * N + m]);
+    acc = acc + jm * st.r[m];
+  }
+  assert(boost::numeric::overlap(acc, plain));
+  return boost::numeric::intersect(acc, plain);
 }
 
 // State enclosure at every t in tt, from the steps of run range [a, b] that meet tt.
@@ -193,11 +220,79 @@ double rel_width(const I& x) {
   return m > 0 ? arith::width_up(x) / m : 0;
 }
 
+// Magnitude and width of an interval, as intervals (no double overflow for MPFR magnitudes).
+template <Interval I>
+I mag(const I& x) {
+  return I(boost::numeric::norm(x));
+}
+template <Interval I>
+I wid(const I& x) {
+  return I(x.upper()) - I(x.lower());
+}
+
 struct Settings {
+  bool lohner = false;  // QR representation between steps (S13)-(S15); used where the fast mode decays (ε = −1)
   int p = 24;
   double log_tol = std::log(1e-17);
   double t_max = 1000;
 };
+
+// The Lohner step (S14) for the extended state X = (y, s) (n = nc + 1; s' = 0): with Ψ(X) the Taylor
+// polynomial of the step at H, y(t1) ∈ Ψ(x̂) + H^{p+1} E + DΨ(hull) A r, DΨ by dual numbers over the
+// hull of the set (the segment from x̂ to every point of the set lies in it). Returns the new set;
+// the caller intersects its hull with the plain enclosure of the step.
+template <Interval I, int N>
+lohner::Set<I> lohner_step(const lohner::Set<I>& set, StepData<I>& st, int eps, bool var, int p) {
+  using D = lohner::Dual<I, N>;
+  const int nc = N - 1;
+  assert((var ? 8 : 4) == nc);
+  const std::vector<I> Yh = lohner::hull(set);
+  // Point coefficients at the centre.
+  model::ReducedState<I> yc{};
+  for (int j = 0; j < 8; ++j) yc[j] = j < nc ? set.x[j] : I(0);
+  std::array<std::vector<I>, 8> cc;
+  coefficients(yc, I(st.t0), set.x[nc], eps, var, p, cc);
+  // Dual coefficients over the hull.
+  model::ReducedState<D> yd{};
+  for (int j = 0; j < 8; ++j) yd[j] = j < nc ? D::variable(Yh[j], j) : D(0);
+  const D sd = D::variable(Yh[nc], nc);
+  std::vector<D> Z, V;
+  model::reduced_taylor<D>(yd, D(I(st.t0)), sd, eps, var, p + 4, Z, V);
+  std::vector<I> v(N), M(N * N, I(0));
+  std::vector<I> J(N * N, I(0));
+  st.N = N;
+  st.cc = cc;
+  st.A = set.A;
+  st.r = set.r;
+  st.Dc.assign(N * N * (p + 1), I(0));
+  for (int i = 0; i < nc; ++i) {
+    I acc = cc[i][p];
+    for (int k = p - 1; k >= 0; --k) acc = acc * st.H + cc[i][k];
+    v[i] = acc + tau_pow(st.H, p + 1) * st.E[i];
+    for (int j = 0; j < N; ++j) {
+      auto coef = [&](int k) {
+        const D& c = i < 4 ? Z[k + i] : V[k + i - 4];
+        long f = 1;
+        for (int q = 1; q <= (i < 4 ? i : i - 4); ++q) f *= (k + q);
+        return c.grad(j) * I(f);
+      };
+      for (int k = 0; k <= p; ++k) st.Dc[(i * N + j) * (p + 1) + k] = coef(k);
+      I a = coef(p);
+      for (int k = p - 1; k >= 0; --k) a = a * st.H + coef(k);
+      J[i * N + j] = a;
+    }
+  }
+  v[nc] = set.x[nc];
+  J[nc * N + nc] = I(1);
+  for (int i = 0; i < N; ++i)
+    for (int k = 0; k < N; ++k) {
+      I acc(0);
+      for (int j = 0; j < N; ++j)
+        if (set.A[j * N + k] != 0.0) acc = acc + J[i * N + j] * I(set.A[j * N + k]);
+      M[i * N + k] = acc;
+    }
+  return lohner::update<I>(v, M, set.r);
+}
 
 // Validated integration of (S5)(S6) from t = 0 with s in s, counting the zeros of g' = ε + s t²/2 + s u'
 // (S8) until the nth; every zero is certified simple (g'' of one sign on its run of steps).
@@ -212,6 +307,12 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
   int sign_before = eps, run_first = -1, run_g2 = 0;
   bool in_run = false;
   std::array<std::vector<I>, 8> c0;
+  lohner::Set<I> set;
+  if (cfg.lohner) {
+    std::vector<I> x0(nc + 1, I(0));
+    x0[nc] = s;
+    set = lohner::from_box<I>(x0);
+  }
   while (t < cfg.t_max) {
     if (run.steps.size() > 400000) {
       run.failure = "more than 400000 Taylor steps";
@@ -228,19 +329,30 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
     }
     StepData<I> st;
     bool done = false;
+    const double h_init = h;
+    int n_fail = 0, n_exc = 0;
     for (int attempt = 0; attempt < 24 && !done; ++attempt, h *= 0.5) {
       const double t1 = t + h;
       if (!(t1 > t)) break;
       if (!try_step(y, c0, t, t1, s, eps, var, p, st)) {
+        ++n_fail;
         continue;
       }
       // Keep the validated remainder H^{p+1}|E| near the truncation tolerance: the a-priori box
       // overestimates c_{p+1}, so the heuristic step alone can leave a wide remainder.
       {
-        const double lr = (p + 1) * std::log(arith::upper_up(st.H)) + log_mag(st.E[0]);
-        const double excess = lr - (cfg.log_tol + lm);
+        const double lh = (p + 1) * std::log(arith::upper_up(st.H));
+        double excess = lh + log_mag(st.E[0]) - (cfg.log_tol + lm);
+        // With the QR representation the widths no longer wrap, so the remainders of u', u'', u'''
+        // (larger than that of u by about (rate/H)^j) decide the width: keep each near its tolerance.
+        for (int j = 1; cfg.lohner && j < 4; ++j) {
+          double lmj = -1e300;
+          for (int k = 0; k <= 8; ++k) lmj = std::max(lmj, log_mag(c0[j][k]));
+          excess = std::max(excess, lh + log_mag(st.E[j]) - (cfg.log_tol + lmj));
+        }
         if (excess > std::log(16.0) && attempt < 16) {
           h = 2 * h * std::max(0.05, std::exp(-excess / (p + 1)));  // the loop halves it again
+          ++n_exc;
           continue;
         }
       }
@@ -251,6 +363,20 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
         continue;  // zero not isolated yet
       }
       done = true;
+      if (std::getenv("PORECERT_DEBUG_STEP")) std::fprintf(stderr, "STEP t=%g h0=%g h=%g fail=%d exc=%d\n", t, h_init, h, n_fail, n_exc);
+      if (cfg.lohner) {
+        try {
+          set = var ? lohner_step<I, 9>(set, st, eps, var, p) : lohner_step<I, 5>(set, st, eps, var, p);
+        } catch (const std::runtime_error& e) {
+          run.failure = "QR (Lohner) step at t = " + std::to_string(t) + " failed: " + e.what();
+          return run;
+        }
+        const std::vector<I> Y = lohner::hull(set);
+        for (int j = 0; j < nc; ++j) {
+          assert(boost::numeric::overlap(Y[j], st.y1[j]) && "Lohner and plain enclosures of one state are disjoint");
+          st.y1[j] = boost::numeric::intersect(Y[j], st.y1[j]);
+        }
+      }
       const int idx = static_cast<int>(run.steps.size());
       run.steps.push_back(st);
       if (!in_run && g1b == 0) {
@@ -267,6 +393,7 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
             run.sign_after.push_back(se);
             sign_before = se;
             if (static_cast<int>(run.zero_runs.size()) == nth) {
+              if (std::getenv("PORECERT_DEBUG_RUN")) std::fprintf(stderr, "RUN var=%d steps=%zu t=%g ws=%g\n", var, run.steps.size(), t1, arith::width_up(s));
               run.ok = true;
               return run;
             }
@@ -275,8 +402,14 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
       }
       for (int j = 0; j < nc; ++j) y[j] = st.y1[j];
       t = t1;
+      if (std::getenv("PORECERT_DEBUG_WIDTH")) {
+        std::fprintf(stderr, "DBG t=%.4f", t1);
+        for (int j = 0; j < nc; ++j) std::fprintf(stderr, " w%d=%.3e/%.3e", j, arith::to_id(wid(y[j])).upper(), arith::to_id(mag(y[j])).upper());
+        std::fprintf(stderr, "\n");
+      }
     }
     if (!done) {
+      if (std::getenv("PORECERT_DEBUG_RUN")) std::fprintf(stderr, "FAIL var=%d steps=%zu t=%g ws=%g\n", var, run.steps.size(), t, arith::width_up(s));
       run.failure = "Taylor step at t = " + std::to_string(t) +
                     " could not be validated (a-priori enclosure or zero isolation of g' failed)";
       return run;
@@ -285,16 +418,6 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
   run.failure =
       "g' has fewer than " + std::to_string(nth) + " certified zeros on [0, " + std::to_string(cfg.t_max) + "]";
   return run;
-}
-
-// Magnitude and width of an interval, as intervals (no double overflow for MPFR magnitudes).
-template <Interval I>
-I mag(const I& x) {
-  return I(boost::numeric::norm(x));
-}
-template <Interval I>
-I wid(const I& x) {
-  return I(x.upper()) - I(x.lower());
 }
 
 // Boxes of g, g', g'', g''', g'''' over a step (S4), g'''' = g g''' − g' g'' from (S1).
@@ -399,12 +522,14 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     cfg.log_tol = std::min(std::log(1e-17), -0.75 * bits * std::log(2.0));
   }
   r.order = cfg.p;
+  cfg.lohner = eps < 0 && std::getenv("PORECERT_NO_LOHNER") == nullptr;
   const I R = read_interval<I>(R_lo, R_hi);
   const I s_a = arith::from_decimal<I>(sa), s_b = arith::from_decimal<I>(sb);
   const I S_a = arith::from_decimal<I>(SA), S_b = arith::from_decimal<I>(SB);
   const int sR = sgn(R);
   auto fail = [&](Part part, const std::string& why) {
     out.part = part;
+    if (std::getenv("PORECERT_DEBUG_RUN")) std::fprintf(stderr, "PROVEFAIL %s\n", why.c_str());
     r.failure = why;
     r.log.push_back("not certified: " + why);
     return out;
@@ -423,7 +548,18 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     const I sig = isolate_zero(run, nth - 1, s, eps, cfg.p);
     const auto [a, b] = run.zero_runs[nth - 1];
     const auto st = eval_at(run, a, b, 4, cfg.p, sig);
-    *out_R = sig * model::reduced_g(0, sig, s, eps, st[0]);
+    // R = σ g(σ) by the mean-value form about the midpoint of Σ (d/dσ σ g = g + σ g'), intersected
+    // with the direct product: the direct form adds the widths of the parts of g over Σ.
+    const I sm(boost::numeric::median(sig));
+    const auto ym = eval_at(run, a, b, 4, cfg.p, sm);
+    const I slope = model::reduced_g(0, sig, s, eps, st[0]) + sig * model::reduced_g(1, sig, s, eps, st[1]);
+    *out_R = boost::numeric::intersect(sig * model::reduced_g(0, sig, s, eps, st[0]),
+                                       sm * model::reduced_g(0, sm, s, eps, ym[0]) + slope * (sig - sm));
+    if (std::getenv("PORECERT_DEBUG_RUN")) {
+      const I m(boost::numeric::median(sig));
+      const auto sm = eval_at(run, a, b, 4, cfg.p, m);
+      std::fprintf(stderr, "SIG w=%g wR=%g g'(mid) w=%g g'' %g g %g\n", arith::width_up(sig), arith::width_up(*out_R), arith::width_up(model::reduced_g(1, m, s, eps, sm[1])), arith::mid_double(model::reduced_g(2, m, s, eps, sm[2])), arith::mid_double(model::reduced_g(0, m, s, eps, sm[0])));
+    }
     return "";
   };
   I Ra, Rb;
