@@ -329,13 +329,10 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
     }
     StepData<I> st;
     bool done = false;
-    const double h_init = h;
-    int n_fail = 0, n_exc = 0;
     for (int attempt = 0; attempt < 24 && !done; ++attempt, h *= 0.5) {
       const double t1 = t + h;
       if (!(t1 > t)) break;
       if (!try_step(y, c0, t, t1, s, eps, var, p, st)) {
-        ++n_fail;
         continue;
       }
       // Keep the validated remainder H^{p+1}|E| near the truncation tolerance: the a-priori box
@@ -352,7 +349,6 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
         }
         if (excess > std::log(16.0) && attempt < 16) {
           h = 2 * h * std::max(0.05, std::exp(-excess / (p + 1)));  // the loop halves it again
-          ++n_exc;
           continue;
         }
       }
@@ -363,7 +359,6 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
         continue;  // zero not isolated yet
       }
       done = true;
-      if (std::getenv("PORECERT_DEBUG_STEP")) std::fprintf(stderr, "STEP t=%g h0=%g h=%g fail=%d exc=%d\n", t, h_init, h, n_fail, n_exc);
       if (cfg.lohner) {
         try {
           set = var ? lohner_step<I, 9>(set, st, eps, var, p) : lohner_step<I, 5>(set, st, eps, var, p);
@@ -393,7 +388,6 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
             run.sign_after.push_back(se);
             sign_before = se;
             if (static_cast<int>(run.zero_runs.size()) == nth) {
-              if (std::getenv("PORECERT_DEBUG_RUN")) std::fprintf(stderr, "RUN var=%d steps=%zu t=%g ws=%g\n", var, run.steps.size(), t1, arith::width_up(s));
               run.ok = true;
               return run;
             }
@@ -402,14 +396,8 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
       }
       for (int j = 0; j < nc; ++j) y[j] = st.y1[j];
       t = t1;
-      if (std::getenv("PORECERT_DEBUG_WIDTH")) {
-        std::fprintf(stderr, "DBG t=%.4f", t1);
-        for (int j = 0; j < nc; ++j) std::fprintf(stderr, " w%d=%.3e/%.3e", j, arith::to_id(wid(y[j])).upper(), arith::to_id(mag(y[j])).upper());
-        std::fprintf(stderr, "\n");
-      }
     }
     if (!done) {
-      if (std::getenv("PORECERT_DEBUG_RUN")) std::fprintf(stderr, "FAIL var=%d steps=%zu t=%g ws=%g\n", var, run.steps.size(), t, arith::width_up(s));
       run.failure = "Taylor step at t = " + std::to_string(t) +
                     " could not be validated (a-priori enclosure or zero isolation of g' failed)";
       return run;
@@ -522,14 +510,13 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     cfg.log_tol = std::min(std::log(1e-17), -0.75 * bits * std::log(2.0));
   }
   r.order = cfg.p;
-  cfg.lohner = eps < 0 && std::getenv("PORECERT_NO_LOHNER") == nullptr;
+  cfg.lohner = eps < 0;  // the fast mode decays: plain intervals wrap (S13)
   const I R = read_interval<I>(R_lo, R_hi);
   const I s_a = arith::from_decimal<I>(sa), s_b = arith::from_decimal<I>(sb);
   const I S_a = arith::from_decimal<I>(SA), S_b = arith::from_decimal<I>(SB);
   const int sR = sgn(R);
   auto fail = [&](Part part, const std::string& why) {
     out.part = part;
-    if (std::getenv("PORECERT_DEBUG_RUN")) std::fprintf(stderr, "PROVEFAIL %s\n", why.c_str());
     r.failure = why;
     r.log.push_back("not certified: " + why);
     return out;
@@ -555,11 +542,6 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     const I slope = model::reduced_g(0, sig, s, eps, st[0]) + sig * model::reduced_g(1, sig, s, eps, st[1]);
     *out_R = boost::numeric::intersect(sig * model::reduced_g(0, sig, s, eps, st[0]),
                                        sm * model::reduced_g(0, sm, s, eps, ym[0]) + slope * (sig - sm));
-    if (std::getenv("PORECERT_DEBUG_RUN")) {
-      const I m(boost::numeric::median(sig));
-      const auto sm = eval_at(run, a, b, 4, cfg.p, m);
-      std::fprintf(stderr, "SIG w=%g wR=%g g'(mid) w=%g g'' %g g %g\n", arith::width_up(sig), arith::width_up(*out_R), arith::width_up(model::reduced_g(1, m, s, eps, sm[1])), arith::mid_double(model::reduced_g(2, m, s, eps, sm[2])), arith::mid_double(model::reduced_g(0, m, s, eps, sm[0])));
-    }
     return "";
   };
   I Ra, Rb;
