@@ -29,8 +29,8 @@ struct Dual {
   std::array<I, N> d{};
   bool konst = true;
   Dual() : v(0) {}
-  Dual(int x) : v(x) {}    // NOLINT: the Taylor recursion builds constants as S(int)
-  Dual(long x) : v(x) {}   // NOLINT
+  Dual(int x) : v(x) {}       // NOLINT: the Taylor recursion builds constants as S(int)
+  Dual(long x) : v(x) {}      // NOLINT
   Dual(const I& x) : v(x) {}  // NOLINT
   static Dual variable(const I& x, int j) {
     Dual r(x);
@@ -65,8 +65,7 @@ Dual<I, N> operator*(const Dual<I, N>& a, const Dual<I, N>& b) {
   Dual<I, N> r(a.v * b.v);
   if (a.konst && b.konst) return r;
   r.konst = false;
-  for (int j = 0; j < N; ++j)
-    r.d[j] = a.konst ? a.v * b.d[j] : b.konst ? a.d[j] * b.v : a.d[j] * b.v + a.v * b.d[j];
+  for (int j = 0; j < N; ++j) r.d[j] = a.konst ? a.v * b.d[j] : b.konst ? a.d[j] * b.v : a.d[j] * b.v + a.v * b.d[j];
   return r;
 }
 template <arith::Interval I, int N>
