@@ -208,14 +208,15 @@ TEST_CASE("through the driver and the command line: verify --model pipe, certifi
   CHECK(r.out.find("[channel]") != std::string::npos);
   r = porecert_cli("verify --model pipe --R=1 --hartmann 2");
   CHECK(r.rc == 2);
+  // report, sweep and branches take the pipe (tests/test_cli_models.cpp checks what they certify).
   r = porecert_cli("report " + path + " --html " + tmp + "/page.html");
+  CHECK(r.rc == 0);
+  r = porecert_cli("sweep --model pipe --R=1:1.1 --branch II");  // types II/III are Berman's
   CHECK(r.rc == 2);
-  CHECK(r.out.find("not supported by report") != std::string::npos);
-  r = porecert_cli("sweep --model pipe --R=1");  // sweep takes no --model: CLI11 refuses it
-  CHECK(r.rc == 2);
+  CHECK(r.out.find("--branch") != std::string::npos);
   r = porecert_cli("branches --model pipe --R=1");
-  CHECK(r.rc == 2);
-  CHECK(r.out.find("--model") != std::string::npos);
+  CHECK(r.rc == 0);
+  CHECK(r.out.find("no search") != std::string::npos);
   // Beyond the fold of the branch from R = 0 (docs/models.md §2): not certified, exit 1, with the reason.
   r = porecert_cli("verify --model pipe --R=3");
   CHECK(r.rc == 1);

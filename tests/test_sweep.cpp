@@ -112,7 +112,7 @@ TEST_CASE("sweep of type I near R = 0: covered, glued, and every box encloses Be
   for (const auto& b : d["boxes"]) {
     CHECK(b["status"] == "certified");
     // Berman 1953 (re-derived in ../shared/notes/method.md): f'(0) = 3/2 - R/140 + O(R^2); at
-    // R <= 4e-4 the O(R^2) term is below 1e-8, far inside an enclosure of width about 4e-4.
+    // R <= 4e-4 the O(R^2) term is below 1e-8, inside the box enclosure (it spans the R/140 change).
     const double R = 0.5 * (std::stod(b["R"][0].get<std::string>()) + std::stod(b["R"][1].get<std::string>()));
     const double fp0 = 1.5 - R / 140;
     CHECK(std::stod(b["values"]["f'(0)"][0].get<std::string>()) < fp0 - 1e-7);

@@ -23,10 +23,6 @@ Action register_branches(CLI::App& app) {
   return [o] {
     proof::CertifyRequest req;
     req.model = spec_from(o->mo);
-    if (req.model.is_taylor())
-      throw input_error("--model: '" + req.model.name +
-                        "' is not supported by branches (rule: the porous pipe is certified by porecert verify "
-                        "--model pipe, on the branch continued from R = 0; docs/models.md §2)");
     std::tie(req.R_lo, req.R_hi) = model::parse_R("--R", o->R);
     if (o->precision != 0 && (o->precision < 53 || o->precision > 4096))
       throw input_error("--precision: " + std::to_string(o->precision) + " is outside 53..4096 bits");
@@ -38,6 +34,10 @@ Action register_branches(CLI::App& app) {
     j["R"] = nlohmann::json::array({req.R_lo, req.R_hi});
     j["searched_region"] = b.region;
     j["pairwise_disjoint"] = b.pairwise_disjoint;
+    j["model"] = model::model_id_of(req.model);
+    j["claim"] =
+        "each certified solution exists and is unique in its ball; no claim is made about solutions outside "
+        "the searched region";
     j["solutions"] = nlohmann::json::array();
     const bool quiet = o->json == "-";
     if (!quiet)

@@ -51,8 +51,13 @@ void print_outcome(const proof::SubmissionOutcome& r) {
       "  CERTIFIED (%s): true solution within %.3g of the %s candidate, unique within %.3g\n",
       o.precision_bits <= 53 ? "double intervals" : ("MPFR " + std::to_string(o.precision_bits) + " bits").c_str(),
       o.existence_radius, r.used_refinement ? "Newton-refined" : "submitted", o.uniqueness_radius);
-  std::printf("  f''(1) in [%s, %s]   K in [%s, %s]\n", o.fpp1.lo.c_str(), o.fpp1.hi.c_str(), o.K.lo.c_str(),
-              o.K.hi.c_str());
+  if (!o.model.is_berman()) {  // the model's own value keys (docs/models.md §0)
+    for (const auto& nv : o.values)
+      std::printf("  %-8s in [%s, %s]\n", nv.key.c_str(), nv.enc.lo.c_str(), nv.enc.hi.c_str());
+  } else {
+    std::printf("  f''(1) in [%s, %s]   K in [%s, %s]\n", o.fpp1.lo.c_str(), o.fpp1.hi.c_str(), o.K.lo.c_str(),
+                o.K.hi.c_str());
+  }
   if (r.distance) print_distance(*r.distance);
 }
 
@@ -68,6 +73,10 @@ proof::CertifyRequest request_of(const model::ClaimsFile& f) {
   req.R_hi = f.R_hi;
   req.modes = f.modes;
   req.precision_bits = f.precision_bits;
+  req.model = f.model;
+  if (f.model.is_taylor() && f.precision_bits > 53)
+    throw input_error("[candidate] precision_bits: " + std::to_string(f.precision_bits) +
+                      " with [model] name = \"pipe\" (rule: 53 or 0 = automatic; docs/models.md §2)");
   return req;
 }
 
@@ -120,6 +129,14 @@ Action register_check(CLI::App& app) {
       r.outcome = proof::certify_berman(req);
       r.log = r.outcome.log;
       source = "branch I";
+    } else if (!f.model.is_berman()) {  // a shooting start in the model's own variable (docs/models.md §6)
+      proof::CertifyRequest rs = req;
+      rs.branch = "";
+      rs.start = std::make_pair(arith::mid_double(arith::from_decimal<arith::Id>(f.start->first)),
+                                arith::mid_double(arith::from_decimal<arith::Id>(f.start->second)));
+      r.outcome = proof::certify_berman(rs);
+      r.log = r.outcome.log;
+      source = "start = [" + f.start->first + ", " + f.start->second + "]";
     } else {
       const candidate::Submission s = submission_of(f);
       source = f.csv ? *f.csv : f.chebyshev ? *f.chebyshev : "start = [" + s.a + ", " + s.b + "]";
@@ -132,8 +149,9 @@ Action register_check(CLI::App& app) {
       undecided += v.holds == arith::Tri::unsure;
     }
     if (*json != "-") {
-      std::printf("porecert check: %s (R = %s%s%s, candidate: %s)\n", path->c_str(), f.R_lo.c_str(),
-                  f.R_lo == f.R_hi ? "" : " .. ", f.R_lo == f.R_hi ? "" : f.R_hi.c_str(), source.c_str());
+      std::printf("porecert check: %s (%s, R = %s%s%s, candidate: %s)\n", path->c_str(),
+                  model::describe(f.model).c_str(), f.R_lo.c_str(), f.R_lo == f.R_hi ? "" : " .. ",
+                  f.R_lo == f.R_hi ? "" : f.R_hi.c_str(), source.c_str());
       print_outcome(r);
       for (const auto& v : verdicts) {
         std::printf("  claim %d: %-9s %s\n", v.index, proof::verdict_word(v.holds), v.claim.c_str());
@@ -149,6 +167,9 @@ Action register_check(CLI::App& app) {
       j["format_version"] = 1;
       j["claims_file"] = *path;
       j["R"] = nlohmann::json::array({f.R_lo, f.R_hi});
+      nlohmann::json mp = nlohmann::json::object();
+      for (const auto& [k, v] : f.model.params) mp[k] = v;
+      j["model"] = {{"name", f.model.name}, {"parameters", mp}, {"id", model::model_id_of(f.model)}};
       j["candidate_source"] = source;
       j["certified"] = r.outcome.certified;
       j["log"] = r.log;

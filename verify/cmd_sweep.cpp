@@ -15,6 +15,7 @@
 #include "certificate/journal.hpp"
 #include "certificate/sweep.hpp"
 #include "commands.hpp"
+#include "model_options.hpp"
 #include "proof/sweep.hpp"
 
 #ifdef PORECERT_MPI
@@ -32,6 +33,7 @@ struct SweepOptions {
   std::string R, branch = "I", json, journal, width = "0.005", min_width = "0.00001";
   int jobs = 0;
   bool resume = false, stop_at_gap = false;
+  ModelOptions mo;
 };
 
 // Ranks: 1 without MPI or when not started by mpirun.
@@ -123,6 +125,10 @@ int run_sweep(const SweepOptions& v) {
   if (v.branch != "I" && v.branch != "II" && v.branch != "III")
     throw input_error("--branch: '" + v.branch + "' is not a branch (rule: I, II or III)");
   p.branch = v.branch;
+  p.model = spec_from(v.mo);
+  if (!p.model.is_berman() && p.branch != "I")
+    throw input_error("--branch: '" + p.branch + "' is for Berman's model only (rule: with --model " + p.model.name +
+                      " sweep --branch I, the branch continued from R = 0; docs/models.md §6)");
   p.width = check_width("--width", v.width);
   p.min_width = check_width("--min-width", v.min_width);
   if (arith::tri_less(arith::from_decimal<arith::Id>(p.width), arith::from_decimal<arith::Id>(p.min_width)) ==
@@ -296,6 +302,7 @@ Action register_sweep(CLI::App& app) {
   sub->add_option("--min-width", v->min_width,
                   "A box narrower than this that fails is reported as a gap (default 1e-5)");
   sub->add_flag("--stop-at-gap", v->stop_at_gap, "Stop at the first gap (always on for II and III)");
+  add_model_options(sub, v->mo);
   return [v] { return run_sweep(*v); };
 }
 

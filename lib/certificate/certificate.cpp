@@ -189,8 +189,18 @@ json to_json(const Problem& p, const proof::CertifyOutcome& o) {
     j["candidate"]["tangent_hex"] = o.tangent_hex;
     j["candidate"]["tangent_meaning"] =
         "x1: for R in the box the proof is about x(R) = coefficients + (R - R0) x1, R0 the double nearest the "
-        "midpoint of R; the radii are stated about the coefficients (docs/method.md (M3.11))";
+        "midpoint of R; existence_radius and uniqueness_radius are stated about the coefficients, moving_centre "
+        "holds the proof's own radii about x(R) (docs/method.md (M3.11), (M3.12))";
   }
+  if (o.moving_centre && o.certified)
+    j["moving_centre"] = {
+        {"R0_hex", arith::hex_exact(o.R0)},
+        {"existence_radius", up_str(o.centre_existence_radius)},
+        {"uniqueness_radius", down_str(o.centre_uniqueness_radius)},
+        {"meaning",
+         "for each R of the box, with x(R) = candidate.coefficients_hex + (R - R0) candidate.tangent_hex: a true "
+         "solution lies within existence_radius of x(R) and is the only one in the open ball of radius "
+         "uniqueness_radius about x(R), in the space above (docs/method.md (M3.11))"}};
   if (o.reduced) reduced_into(j, *o.reduced);
   if (o.method == proof::kTaylorMethod) taylor_into(j, o);
   j["log"] = o.log;
@@ -358,6 +368,42 @@ Stored parse(const json& j) {
         s.tangent_hex.push_back(c.get<std::string>());
       }
     }
+  }
+  if (j.contains("moving_centre") && s.status == "certified") {
+    const auto& mc = need(j, "moving_centre", json::value_t::object, "the radii about the moving centre");
+    if (s.tangent_hex.empty())
+      throw format_error("certificate: moving_centre is present but candidate.tangent_hex is not (rule: a moving "
+                         "centre needs a tangent)");
+    const auto num = [&](const char* k, bool up) {
+      const std::string t = need(mc, k, json::value_t::string, "decimal string").get<std::string>();
+      double v = 0;
+      try {
+        const arith::Id x = arith::from_decimal<arith::Id>(t);
+        v = up ? x.upper() : x.lower();
+      } catch (const std::invalid_argument&) {
+        throw format_error(std::string("certificate: moving_centre.") + k + " is \"" + t.substr(0, 60) +
+                           "\", must be a decimal number");
+      }
+      if (!(v >= 0))
+        throw format_error(std::string("certificate: moving_centre.") + k + " is \"" + t.substr(0, 60) +
+                           "\", must be >= 0");
+      return v;
+    };
+    MovingCentre c;
+    c.existence_radius = num("existence_radius", true);
+    c.uniqueness_radius = num("uniqueness_radius", false);
+    const std::string r0 = need(mc, "R0_hex", json::value_t::string, "exact hex string of a double").get<std::string>();
+    bool exact = false;
+    try {
+      const arith::Id v = arith::from_decimal<arith::Id>(r0);
+      exact = v.lower() == v.upper();
+      c.R0 = v.lower();
+    } catch (const std::invalid_argument&) {
+    }
+    if (!exact)
+      throw format_error("certificate: moving_centre.R0_hex is \"" + r0.substr(0, 60) +
+                         "\", must be an exact double (rule: hex or decimal string of a double)");
+    s.moving_centre = c;
   }
   const auto er = need(j, "existence_radius", json::value_t::string, "decimal string").get<std::string>();
   if (s.status == "certified") {  // an uncertified result may state "inf"

@@ -2,6 +2,7 @@
 // (docs/certificate.md). Writing is atomic (temp file + rename): a failure loses nothing.
 #pragma once
 #include <nlohmann/json.hpp>
+#include <optional>
 #include <string>
 
 #include "proof/certify.hpp"
@@ -25,6 +26,11 @@ struct format_error : std::runtime_error {
 };
 
 // Reads and validates the fixed keys; throws format_error (and nothing else: docs/soundness.md).
+// The proof's radii about x(R) = x̄ + (R − R0) x1 of an interval box (docs/method.md (M3.11)).
+struct MovingCentre {
+  double R0 = 0, existence_radius = 0, uniqueness_radius = 0;
+};
+
 struct Stored {
   Problem problem;
   std::string status;
@@ -32,6 +38,7 @@ struct Stored {
   std::vector<std::string> candidate_hex;
   std::vector<std::string> tangent_hex;  // predictor of an interval box (docs/method.md (M3.11)); may be empty
   double existence_radius = 0;
+  std::optional<MovingCentre> moving_centre;  // with a tangent; older certificates may lack it
   std::string method = "newton-kantorovich";         // or "reduced-ivp"
   int eps = 1, nth = 1;                              // reduced-ivp: branch data
   std::array<std::string, 4> reduced_s;              // reduced-ivp: s_lo, s_hi, S_lo, S_hi

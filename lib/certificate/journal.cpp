@@ -68,10 +68,22 @@ Journal::Journal(const std::string& path, const json& header, bool resume, std::
         break;
       }
       if (line_no == 1) {
-        if (j != header)
-          throw format_error("--resume: journal '" + path + "' belongs to a different sweep (its header " +
-                             line.substr(0, 200) + " differs from this sweep's " + header.dump().substr(0, 200) +
-                             "; rule: resume with the same --R, --branch, --width, --min-width)");
+        if (j != header) {
+          // Name the first field that differs (a model's parameters are inside "model").
+          std::string field, theirs, ours;
+          for (const json* a : {&header, static_cast<const json*>(&j)})
+            for (const auto& [k, v] : a->items())
+              if (field.empty() && (!j.contains(k) || !header.contains(k) || j.at(k) != header.at(k))) {
+                field = k;
+                const std::string none = k == "model" ? "absent (Berman's model)" : "absent";
+                theirs = j.contains(k) ? j.at(k).dump() : none;
+                ours = header.contains(k) ? header.at(k).dump() : none;
+              }
+          throw format_error("--resume: journal '" + path + "' belongs to a different sweep (field \"" + field +
+                             "\" is " + theirs.substr(0, 200) + " in the journal but " + ours.substr(0, 200) +
+                             " for this sweep; rule: resume with the same --R, --branch, --width, --min-width, "
+                             "--model and model parameters)");
+        }
       } else if (records) {
         records->push_back(std::move(j));
       }

@@ -94,12 +94,31 @@ RecheckReport independent_recheck(const json& j) {
         "stored " + num(stored_b[i]) + ", recomputed " + num(rec_b[i]));
   // Radii: the stated ones must satisfy the recomputed radii polynomial (or be implied by its roots).
   const double Z = std::max(o.Z0, o.Z1);
-  const bool exist_ok = o.existence_radius <= r_exist || p_negative(o.Y0, Z, o.Z2, r_exist);
+  // With a tangent the stated radii are about x̄ but the polynomial is about x̄(R) (M3.12): only the
+  // direct comparison applies.
+  const bool fixed = s.tangent_hex.empty();
+  const bool exist_ok = o.existence_radius <= r_exist || (fixed && p_negative(o.Y0, Z, o.Z2, r_exist));
   add("existence_radius", exist_ok,
       "stored " + num(r_exist) + ", recomputed " + num(o.existence_radius) + " (p(r) < 0 required at the stored r)");
-  const bool uniq_ok = r_uniq <= o.uniqueness_radius || p_negative(o.Y0, Z, o.Z2, r_uniq);
+  const bool uniq_ok = r_uniq <= o.uniqueness_radius || (fixed && p_negative(o.Y0, Z, o.Z2, r_uniq));
   add("uniqueness_radius", uniq_ok,
       "stored " + num(r_uniq) + ", recomputed " + num(o.uniqueness_radius) + " (must not exceed the larger root)");
+  // Radii about the moving centre (M3.11): the same rules, and the same point R0.
+  if (s.moving_centre) {
+    const auto& mc = *s.moving_centre;
+    add("moving_centre.R0_hex", o.moving_centre && mc.R0 == o.R0,
+        "stored " + num(mc.R0) + ", recomputed " + num(o.R0) + " (the double nearest the box midpoint)");
+    add("moving_centre.existence_radius",
+        o.moving_centre && (o.centre_existence_radius <= mc.existence_radius ||
+                            p_negative(o.Y0, Z, o.Z2, mc.existence_radius)),
+        "stored " + num(mc.existence_radius) + ", recomputed " + num(o.centre_existence_radius) +
+            " (p(r) < 0 required at the stored r)");
+    add("moving_centre.uniqueness_radius",
+        o.moving_centre && (mc.uniqueness_radius <= o.centre_uniqueness_radius ||
+                            p_negative(o.Y0, Z, o.Z2, mc.uniqueness_radius)),
+        "stored " + num(mc.uniqueness_radius) + ", recomputed " + num(o.centre_uniqueness_radius) +
+            " (must not exceed the larger root)");
+  }
   // C3 error bounds: c3[k] = λ_k r; the stored ones must cover the recomputed ones.
   for (int k = 0; k < 4; ++k) {
     bool ok = stored_e[k] >= o.c3_error[k];

@@ -32,12 +32,16 @@ json prove_box(const Params& p, const std::string& lo, const std::string& hi) {
   // Over a box the value enclosures are as wide as the box: no MPFR re-proof for width (M5).
   req.target_rel_width = std::numeric_limits<double>::infinity();
   req.search_other_labels = false;  // an unclassified structure over a wide box: bisect instead
+  req.model = p.model;
   const proof::CertifyOutcome o = proof::certify_labelled(req);
   json cert = to_json(Problem{lo, hi, p.branch, ""}, o);
   cert.erase("seconds");  // the only field that differs between two runs of the same proof
   json r;
   r["R"] = box_R(lo, hi);
-  const bool label_ok = o.certified && o.structure.label == p.branch;
+  // Branch labels are Berman's half-channel sign structures (docs/branches.md); the full channel and
+  // the pipe carry none, so there a box is the solution continued from R = 0 (docs/sweep.md).
+  const bool labelled = p.model.half_channel();
+  const bool label_ok = o.certified && (labelled ? o.structure.label == p.branch : o.structure.label.empty());
   r["status"] = label_ok ? "certified" : "not certified";
   if (label_ok) {
     r["values"] = cert["values"];
@@ -56,7 +60,8 @@ json prove_box(const Params& p, const std::string& lo, const std::string& hi) {
 
 }  // namespace
 
-json identity(const Params& p) {
+// The header fields of every sweep (plain Berman sweeps have exactly these).
+static json base_identity(const Params& p) {
   return {{"format", "porecert-sweep-journal"},
           {"version", 1},
           {"R", box_R(p.R_lo, p.R_hi)},
@@ -67,6 +72,16 @@ json identity(const Params& p) {
           {"max_modes", p.max_modes},
           {"max_precision_bits", p.max_precision_bits},
           {"software", "porecert 0.1.0"}};
+}
+
+json identity(const Params& p) {
+  json id = base_identity(p);
+  if (!p.model.is_berman()) {
+    json mp = json::object();
+    for (const auto& [k, v] : p.model.params) mp[k] = v;
+    id["model"] = {{"name", p.model.name}, {"parameters", mp}};
+  }
+  return id;
 }
 
 Plan make_plan(const Params& p) {
@@ -295,14 +310,28 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
             "neither box's s bracket lies in the other's uniqueness set S, nor do the two sets S meet with one sign "
             "of dR/ds (docs/sweep.md (S3))";
     } else if (ci && cj) {
-      const auto hex = [](const json& b) {
-        return b["certificate"]["candidate"]["coefficients_hex"].get<std::vector<std::string>>();
+      // Distance of the proofs' centres at the shared R (S3): x̄ + (R − R0) x1 for a moving centre,
+      // with the radii about it; the fixed-centre radii otherwise.
+      const auto centre = [](const json& b) {
+        const json& c = b["certificate"]["candidate"];
+        proof::sweep::Centre x{c["coefficients_hex"].get<std::vector<std::string>>(), {}, ""};
+        if (b["certificate"].contains("moving_centre")) {
+          x.tangent = c["tangent_hex"].get<std::vector<std::string>>();
+          x.R0 = b["certificate"]["moving_centre"]["R0_hex"].get<std::string>();
+        }
+        return x;
       };
-      const double d = proof::sweep::candidate_distance_up(hex(boxes[i]), hex(boxes[i + 1]));
-      const arith::Tri g = proof::sweep::glued(
-          d, boxes[i]["existence_radius"].get<std::string>(), boxes[i]["uniqueness_radius"].get<std::string>(),
-          boxes[i + 1]["existence_radius"].get<std::string>(), boxes[i + 1]["uniqueness_radius"].get<std::string>());
-      j["candidate_distance"] = arith::decimal_upper(arith::Id(d), 17);
+      const auto radius = [](const json& b, const char* k) {
+        const json& c = b["certificate"];
+        return c.contains("moving_centre") ? c["moving_centre"][k].get<std::string>() : b[k].get<std::string>();
+      };
+      const double d =
+          proof::sweep::centre_distance_up(centre(boxes[i]), centre(boxes[i + 1]), boxes[i]["R"][1].get<std::string>());
+      const arith::Tri g = proof::sweep::glued(d, radius(boxes[i], "existence_radius"),
+                                               radius(boxes[i], "uniqueness_radius"),
+                                               radius(boxes[i + 1], "existence_radius"),
+                                               radius(boxes[i + 1], "uniqueness_radius"));
+      j["centre_distance"] = arith::decimal_upper(arith::Id(d), 17);
       j["glued"] = g == arith::Tri::yes ? "glued" : "not glued";
       if (g != arith::Tri::yes)
         j["reason"] = "distance + existence radius of one box is not below the uniqueness radius of the other (S3)";
@@ -355,7 +384,14 @@ std::vector<std::string> summary_lines(const json& doc) {
   const auto& c = doc["counts"];
   std::size_t glued = 0;
   for (const auto& j : doc["joints"]) glued += j["glued"] == "glued";
-  out.push_back("porecert sweep: branch " + doc["branch"].get<std::string>() +
+  std::string model;  // plain Berman sweeps name no model
+  if (doc["parameters"].contains("model")) {
+    model = doc["parameters"]["model"]["name"].get<std::string>();
+    for (const auto& [k, v] : doc["parameters"]["model"]["parameters"].items())
+      model += " " + k + " = " + v.get<std::string>();
+    model += ", ";
+  }
+  out.push_back("porecert sweep: " + model + "branch " + doc["branch"].get<std::string>() +
                 ", R = " + doc["R"][0].get<std::string>() + " .. " + doc["R"][1].get<std::string>());
   out.push_back("  boxes: " + std::to_string(c["certified"].get<std::size_t>()) + " certified of " +
                 std::to_string(c["boxes"].get<std::size_t>()) + " (from " +

@@ -11,6 +11,8 @@
 #include <string>
 #include <vector>
 
+#include "model/model_spec.hpp"
+
 namespace porecert::certificate::sweep {
 
 inline constexpr const char* kFormat = "porecert-sweep";
@@ -23,9 +25,11 @@ struct Params {
   bool stop_at_gap = false;           // always true for II/III (S4)
   int max_modes = 3000;
   int max_precision_bits = 128;
+  model::ModelSpec model;  // checked; default Berman (docs/models.md)
 };
 
-// What identifies the sweep in its journal header (everything that changes the result).
+// What identifies the sweep in its journal header (everything that changes the result). A model
+// other than plain Berman adds "model": {"name", "parameters"} (Berman headers are unchanged).
 nlohmann::json identity(const Params& p);
 
 // The initial boxes and the order they are processed in: ascending R for type I, descending

@@ -145,7 +145,33 @@ ClaimsFile read_claims_text(std::string_view text, const std::string& path) {
   ClaimsFile f;
   f.path = path;
   const std::string where = "claims file '" + path + "'";
-  only_keys(t, where, {"problem", "candidate", "claim"});
+  only_keys(t, where, {"problem", "model", "candidate", "claim"});
+  if (const toml::node* mn = t.get("model")) {
+    // [model]: name and parameters as in case files (docs/models.md §0); messages name the key.
+    const toml::table* mt = mn->as_table();
+    if (!mt) throw input_error(where + ": 'model' must be a table [model]");
+    only_keys(*mt, "[model]", {"name", "wall-ratio", "expansion", "hartmann", "slip"});
+    ModelSpec spec;
+    if (const auto n = string_key(*mt, "[model]", "name"))
+      spec.name = *n;
+    else
+      throw input_error(
+          "[model] name: missing (rule: name = one of berman, full-channel, moving-walls, mhd, slip, pipe)");
+    for (auto&& [k, v] : *mt)
+      if (k.str() != "name") spec.set(std::string(k.str()), decimal(v, "[model] " + std::string(k.str())));
+    try {
+      f.model = checked(spec);
+    } catch (const input_error& e) {
+      std::string m = e.what();  // "--model: ..." / "--hartmann: ..." in the claims file's words
+      if (m.rfind("--model", 0) == 0)
+        m = "[model] name" + m.substr(7);
+      else if (m.rfind("--", 0) == 0)
+        m = "[model] " + m.substr(2);
+      throw input_error(m);
+    }
+  }
+  std::vector<std::string> value_keys;
+  for (const auto& vk : value_keys_of(f.model)) value_keys.push_back(vk.key);
   const toml::table* prob = t["problem"].as_table();
   if (!prob) throw input_error(where + ": table [problem] is missing (rule: [problem] with R)");
   only_keys(*prob, "[problem]", {"R", "title"});
@@ -183,6 +209,15 @@ ClaimsFile read_claims_text(std::string_view text, const std::string& path) {
   if (sources != 1)
     throw input_error("[candidate]: " + std::to_string(sources) +
                       " candidate sources given (rule: exactly one of csv, chebyshev, start, branch)");
+  if (!f.model.is_berman() && (f.csv || f.chebyshev))
+    throw input_error(std::string("[candidate] ") + (f.csv ? "csv" : "chebyshev") + ": with [model] name = \"" +
+                      f.model.name +
+                      "\" (rule: submitted samples and series are read as Berman's f; with another model use "
+                      "branch = \"I\" or start)");
+  if (f.model.is_taylor() && f.start)
+    throw input_error(
+        "[candidate] start: with [model] name = \"pipe\" (rule: the porous pipe is certified on the "
+        "branch continued from R = 0; use branch = \"I\")");
   if (auto m = integer_key(*cand, "[candidate]", "modes")) {
     if (*m != 0 && (*m < 8 || *m > 4000))
       throw input_error("[candidate] modes: " + std::to_string(*m) + " is outside 8..4000");
@@ -212,9 +247,12 @@ ClaimsFile read_claims_text(std::string_view text, const std::string& path) {
         throw input_error(field + ": give quantity or property, not both");
       if (auto q = string_key(*c, field, "quantity")) {
         k.quantity = *q;
-        if (std::find(std::begin(kValueKeys), std::end(kValueKeys), k.quantity) == std::end(kValueKeys))
-          throw input_error(field + " quantity: '" + k.quantity +
-                            "' is not a value key (rule: f'(0), f'''(0), f''(1), K)");
+        if (std::find(value_keys.begin(), value_keys.end(), k.quantity) == value_keys.end()) {
+          std::string list;
+          for (const auto& vk : value_keys) list += (list.empty() ? "" : ", ") + vk;
+          throw input_error(field + " quantity: '" + k.quantity + "' is not a value key of model " + f.model.name +
+                            " (rule: " + list + ")");
+        }
         const bool has_value = c->contains("value"), has_below = c->contains("below"), has_above = c->contains("above");
         if (has_value + has_below + has_above != 1)
           throw input_error(field + ": give exactly one of value, below, above with quantity '" + k.quantity + "'");
@@ -262,6 +300,10 @@ ClaimsFile read_claims_text(std::string_view text, const std::string& path) {
           k.text = std::string(ex ? "exactly " : "at least ") + std::to_string(k.count) + " solutions found";
         } else {
           k.kind = Claim::Kind::sign;
+          if (!f.model.half_channel())
+            throw input_error(field + " property: '" + prop + "' with [model] name = \"" + f.model.name +
+                              "\" (rule: sign claims are about f on the half channel [0, 1]; for this model use "
+                              "value, bound, unique or solutions-found claims)");
           parse_sign(prop, field + " property", field, k, *c);
         }
       } else {

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "model/case_file.hpp"
+#include "model/model_spec.hpp"
 
 namespace porecert::model {
 
@@ -16,7 +17,7 @@ struct Claim {
   enum class Kind { value, bound, sign, unique, solutions } kind = Kind::value;
   int index = 0;     // 1-based position among the [[claim]] tables
   std::string text;  // the claim in words, for reports
-  // value / bound: one of the certificate's value keys "f'(0)", "f'''(0)", "f''(1)", "K".
+  // value / bound: one of the model's value keys (Berman: f'(0), f'''(0), f''(1), K; docs/models.md §0).
   std::string quantity;
   std::string value, tolerance = "0";  // value claims: |true − value| ≤ tolerance ...
   bool relative = false;               // ... or ≤ tolerance·|value| (relative_tolerance)
@@ -39,6 +40,7 @@ struct Claim {
 struct ClaimsFile {
   std::string path;
   std::string R_lo, R_hi;
+  ModelSpec model;  // [model] table (checked); default Berman
   // Exactly one candidate source.
   std::optional<std::string> csv, chebyshev;  // paths, resolved relative to the claims file
   std::optional<std::pair<std::string, std::string>> start;

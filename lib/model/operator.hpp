@@ -101,25 +101,62 @@ Value<S> directional(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Db
   return v;
 }
 
-// DF(x̄) applied to the unit direction e_j of the unknown layout; Dbar = lift of x̄.
+// The constants h^{(d)}(0) of a direction v in the unknown layout: free ones from v, fixed ones 0.
 template <class S>
-Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, std::size_t j) {
-  const int ns = m.n_scalars();
+std::array<S, 3> direction_constants(const Model<S>& m, const std::vector<S>& v) {
+  std::array<S, 3> c{S(0), S(0), S(0)};
+  for (int d = 0; d < 3; ++d)
+    if (!m.fixed_at_0[d]) c[d] = v[m.free_index(d)];
+  return c;
+}
+
+// DF(x̄) applied to the unit direction e_j of the unknown layout; Dbar = lift of x̄.
+// The unit direction e_j of the unknown layout as (constants at 0, u-part, K-part).
+template <class S>
+struct UnitDirection {
   std::array<S, 3> c{S(0), S(0), S(0)};
   cheb::Series<S> u;
-  S dK(0);
+  S dK = S(0);
+};
+template <class S>
+UnitDirection<S> unit_direction(const Model<S>& m, std::size_t j) {
+  const int ns = m.n_scalars();
+  UnitDirection<S> e;
   if (static_cast<int>(j) < ns) {
     if (static_cast<int>(j) == m.k_index()) {
-      dK = S(1);
+      e.dK = S(1);
     } else {
       for (int d = 0; d < 3; ++d)
-        if (m.free_index(d) == static_cast<int>(j)) c[d] = S(1);
+        if (m.free_index(d) == static_cast<int>(j)) e.c[d] = S(1);
     }
   } else {
-    u.assign(j - ns + 1, S(0));
-    u.back() = S(1);
+    e.u.assign(j - ns + 1, S(0));
+    e.u.back() = S(1);
   }
-  return directional(m, Dbar, c, u, dK);
+  return e;
+}
+
+template <class S>
+Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, std::size_t j) {
+  const UnitDirection<S> e = unit_direction(m, j);
+  return directional(m, Dbar, e.c, e.u, e.dK);
+}
+
+// D²F[v, e_j]: the quadratic terms of (M1.2) with one factor the lift Dv of a direction v and the
+// other the unit direction e_j (rows and linear terms are zero). DF(x̄ + s v) e_j =
+// DF(x̄) e_j + s D²F[v, e_j] exactly. Used for Z₀ over a box (docs/method.md (M3.14)).
+template <class S>
+Value<S> second_derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dv, std::size_t j) {
+  const UnitDirection<S> e = unit_direction(m, j);  // the K-part does not enter D²F
+  const auto D = lift(e.c, e.u);
+  Value<S> v;
+  v.rows.assign(m.rows.size(), S(0));
+  v.fun = cheb::Series<S>{S(0)};
+  for (const auto& t : m.quad) {
+    v.fun = cheb::add(v.fun, cheb::scale(product_sparse(Dv[t.d1], D[t.d2]), t.coef));
+    v.fun = cheb::add(v.fun, cheb::scale(product_sparse(Dv[t.d2], D[t.d1]), t.coef));
+  }
+  return v;
 }
 
 // DF(x̄) v for a direction v in the unknown layout (Dbar = lift of x̄), in one pass. On interval
@@ -127,10 +164,27 @@ Value<S> derivative_column(const Model<S>& m, const std::array<cheb::Series<S>, 
 // interval boxes (docs/method.md (M3.11)).
 template <class S>
 Value<S> derivative_apply(const Model<S>& m, const std::array<cheb::Series<S>, 4>& Dbar, const std::vector<S>& v) {
-  std::array<S, 3> c{S(0), S(0), S(0)};
-  for (int d = 0; d < 3; ++d)
-    if (!m.fixed_at_0[d]) c[d] = v[m.free_index(d)];
-  return directional(m, Dbar, c, u_of(m, v), v[m.k_index()]);
+  return directional(m, Dbar, direction_constants(m, v), u_of(m, v), v[m.k_index()]);
+}
+
+// D^d of the direction v (d = 0..3): the lift with the fixed constants at 0 taken as zero, so
+// lift(x̄ + s v) = lift(x̄) + s · lift_direction(v) exactly.
+template <class S>
+std::array<cheb::Series<S>, 4> lift_direction(const Model<S>& m, const std::vector<S>& v) {
+  return lift(direction_constants(m, v), u_of(m, v));
+}
+
+// Q(v) = ½ D²F[v, v]: the quadratic terms of (M1.2) on the lift of the direction v (fixed
+// constants taken as zero; the rows are linear, so their part is zero). F(x̄ + v) = F(x̄) +
+// DF(x̄) v + Q(v) exactly. Used by the R-predictor (docs/method.md (M3.11)).
+template <class S>
+Value<S> quadratic_part(const Model<S>& m, const std::vector<S>& v) {
+  const auto D = lift_direction(m, v);
+  Value<S> out;
+  out.rows.assign(m.rows.size(), S(0));
+  out.fun = cheb::Series<S>{S(0)};
+  for (const auto& t : m.quad) out.fun = cheb::add(out.fun, cheb::scale(cheb::product(D[t.d1], D[t.d2]), t.coef));
+  return out;
 }
 
 // a + s·b, rows and function coefficients (the shorter series padded with zeros).

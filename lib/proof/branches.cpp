@@ -24,7 +24,10 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
   if (req.model.is_taylor()) {  // no branch search in a Taylor basis: the branch from R = 0 only
     out.solutions.push_back(certify_berman(req));
     out.origins.push_back("continuation from R = 0 (Taylor basis, docs/models.md §2)");
-    out.region = "the branch continued from R = 0 only";
+    out.region =
+        "no search: only the solution continued in R from the exact R = 0 solution F = 2 xi - xi^2 (Taylor basis, "
+        "docs/models.md §2); other solutions of the pipe equation at this R, if any, were not looked for";
+    out.pairwise_disjoint = out.solutions[0].certified;  // one solution: nothing to separate
     return out;
   }
   const arith::Id R =

@@ -41,6 +41,10 @@ void take(CertifyOutcome& out, const NKResult<I>& r) {
   out.existence_radius = r.existence_radius;
   out.uniqueness_radius = r.uniqueness_radius;
   out.c3_error = r.c3_error;
+  out.moving_centre = r.moving_centre;
+  out.R0 = r.R0;
+  out.centre_existence_radius = r.centre_existence_radius;
+  out.centre_uniqueness_radius = r.centre_uniqueness_radius;
   if (r.certified) {
     out.fp0 = enclose(r.fp0);
     out.fppp0 = enclose(r.fppp0);
@@ -54,43 +58,58 @@ void take(CertifyOutcome& out, const NKResult<I>& r) {
 }
 
 // The model's reported values (model::ValueKey): scale · (D^d f̄(at) ± c3_error[d]), or
-// scale · (K̄ ± r) for d = −1; a free constant at 0 uses its own component ± r (tighter).
+// scale · (K̄ ± r) for d = −1; a free constant at 0 uses its own component ± r (tighter). f̄, r and
+// the errors are those of the proof's centre: x̄, or x̄(R) = x̄ + δ x1 over a box, where a value is
+// affine in δ and enclosed as value(x̄) + [δ] value(x1) (docs/method.md (M3.13)).
 template <arith::Interval I>
 void add_values(CertifyOutcome& out, const model::Model<I>& m, const std::vector<I>& x, const NKResult<I>& r) {
   out.model_id = m.id;
   out.values.clear();
   if (!r.certified) return;
+  const bool mv = r.moving_centre;
   const auto D = model::lift(model::constants_of(m, x), model::u_of(m, x));
-  const I ball(-r.existence_radius, r.existence_radius);
+  const auto D1 = mv ? model::lift_direction(m, r.tangent) : std::array<cheb::Series<I>, 4>{};
+  const auto comp = [&](int i) { return mv ? x[i] + r.delta * r.tangent[i] : x[i]; };
+  const I ball(-r.centre_existence_radius, r.centre_existence_radius);
   for (const auto& k : m.values) {
     I v;
     if (k.d < 0) {
-      v = x[m.k_index()] + ball;
+      v = comp(m.k_index()) + ball;
     } else if (k.at == 0 && k.d < 3 && m.fixed_at_0[k.d]) {
       v = *m.fixed_at_0[k.d];
     } else if (k.at == 0 && k.d < 3) {
-      v = x[m.free_index(k.d)] + ball;
+      v = comp(m.free_index(k.d)) + ball;
     } else {
       const I at = I(k.at);
-      const I p = k.at == 1 ? cheb::value_at_1(D[k.d]) : k.at == 0 ? cheb::value_at_0(D[k.d]) : cheb::eval(D[k.d], at);
-      v = p + I(-r.c3_error[k.d], r.c3_error[k.d]);
+      const auto value = [&](const cheb::Series<I>& s) {
+        return k.at == 1 ? cheb::value_at_1(s) : k.at == 0 ? cheb::value_at_0(s) : cheb::eval(s, at);
+      };
+      I p = value(D[k.d]);
+      if (mv) p = p + r.delta * value(D1[k.d]);
+      v = p + I(-r.centre_c3_error[k.d], r.centre_c3_error[k.d]);
     }
     v = v * I(k.scale);
     out.values.push_back({k.key, k.meaning, enclose(v), arith::to_id(v)});
   }
 }
 
-// Sign structure of the certified solution from the candidate's outward double hull.
+// Sign structure of the certified solution from the proof's centre in outward double intervals:
+// x̄, or the two ends x̄ + δ_lo x1, x̄ + δ_hi x1 of the centres over a box (M3.13).
 template <arith::Interval I>
-void add_structure(CertifyOutcome& out, const model::Model<I>& m, const std::vector<I>& x) {
+void add_structure(CertifyOutcome& out, const model::Model<I>& m, const std::vector<I>& x, const NKResult<I>& r) {
   if (!out.certified) return;
   // The labels (docs/branches.md) are about half-channel profiles with f(0) = f''(0) = 0.
   if (!m.fixed_at_0[0] || !m.fixed_at_0[2]) return;
   const model::Model<Id> md = model::convert<Id>(m, [](const I& v) { return arith::to_id(v); });
-  std::vector<Id> xd;
-  for (const I& v : x) xd.push_back(arith::to_id(v));
-  const auto D = model::lift(model::constants_of(md, xd), model::u_of(md, xd));
-  out.structure = classify(D, out.c3_error, out.fp0_id);
+  std::vector<std::array<cheb::Series<Id>, 4>> vertices;
+  const Id dl = arith::to_id(r.delta);
+  for (const double s : r.moving_centre ? std::vector<double>{dl.lower(), dl.upper()} : std::vector<double>{0.0}) {
+    std::vector<Id> xd;
+    for (std::size_t i = 0; i < x.size(); ++i)
+      xd.push_back(r.moving_centre ? arith::to_id(x[i]) + Id(s) * arith::to_id(r.tangent[i]) : arith::to_id(x[i]));
+    vertices.push_back(model::lift(model::constants_of(md, xd), model::u_of(md, xd)));
+  }
+  out.structure = classify(vertices, r.centre_c3_error, out.fp0_id);
 }
 
 template <arith::Interval I>
@@ -113,6 +132,7 @@ RPredictor<I> predictor_of(const model::ModelSpec& spec, const I& R, const candi
   RPredictor<I> p;
   for (double v : tangent) p.tangent.emplace_back(v);
   p.delta = R - I(R0);
+  p.R0 = R0;
   p.at_R0 = model::build_model<I>(spec, I(R0));
   p.at_0 = model::build_model<I>(spec, I(0));
   p.at_1 = model::build_model<I>(spec, I(1));
@@ -138,7 +158,7 @@ CertifyOutcome prove_double(const model::ModelSpec& spec, const std::string& lo,
   take(out, r);
   out.model = spec;
   add_values(out, mdl, xb, r);
-  add_structure(out, mdl, xb);
+  add_structure(out, mdl, xb, r);
   out.precision_bits = 53;
   out.log.push_back("double, " + std::to_string(r.modes) + " modes: " + summary(r.bounds) +
                     (r.certified ? " -> certified" : " -> " + r.failure));
@@ -162,7 +182,7 @@ CertifyOutcome prove_mpfr(const model::ModelSpec& spec, const std::string& lo, c
   take(out, r);
   out.model = spec;
   add_values(out, mdl, xb, r);
-  add_structure(out, mdl, xb);
+  add_structure(out, mdl, xb, r);
   out.precision_bits = bits;
   out.log.push_back("MPFR " + std::to_string(bits) + " bits, " + std::to_string(r.modes) +
                     " modes: " + summary(r.bounds) + (r.certified ? " -> certified" : " -> " + r.failure));

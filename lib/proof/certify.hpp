@@ -62,6 +62,11 @@ struct CertifyOutcome {
   // Interval boxes of R: the tangent x1 of the first-order predictor (docs/method.md (M3.11)),
   // exact hex strings, about R0 = the double nearest the box midpoint; empty otherwise.
   std::vector<std::string> tangent_hex;
+  // With a tangent: the proof's radii about the moving centre x̄(R) = x̄ + (R − R0) x1, valid for
+  // each R of the box (existence_radius and uniqueness_radius restate them about x̄).
+  bool moving_centre = false;
+  double R0 = 0;
+  double centre_existence_radius = 0, centre_uniqueness_radius = 0;
   double seconds = 0;
   Structure structure;                        // certified sign structure and branch label (when certified)
   arith::Id fp0_id, K_id, fpp1_id, fppp0_id;  // the value enclosures as double intervals

@@ -23,6 +23,11 @@ constexpr int kExactBits = 1024;  // decimal comparisons: both sides rounded out
 Im num(const std::string& d) { return arith::from_decimal<Im>(d); }
 
 const Enclosure& enclosure_of(const CertifyOutcome& o, const std::string& key) {
+  if (!o.model.is_berman()) {  // the model's own value keys (docs/models.md §0), checked by the reader
+    for (const auto& nv : o.values)
+      if (nv.key == key) return nv.enc;
+    throw std::logic_error("claims: value key '" + key + "' not among the certified values");
+  }
   if (key == "f'(0)") return o.fp0;
   if (key == "f'''(0)") return o.fppp0;
   if (key == "f''(1)") return o.fpp1;
@@ -88,12 +93,16 @@ Verdict sign_claim(const Claim& c, const CertifyOutcome& o) {
         name + "(0) = 0 exactly (boundary condition), so " + name + (c.positive ? " > 0" : " < 0") + " fails at 0";
     return r;
   }
-  if (has1 && (c.order == 1 || (c.order == 0 && !c.positive))) {
+  // With a slip wall f'(1) = -beta f''(1) need not vanish: only f(1) = 1 is exact there.
+  const bool fp1_zero = !o.model.has("slip");
+  if (has1 && ((c.order == 1 && fp1_zero) || (c.order == 0 && !c.positive))) {
     r.holds = Tri::no;
     r.evidence =
         name + "(1) = " + (c.order == 1 ? "0" : "1") + " exactly (boundary condition), so the claim fails at 1";
     return r;
   }
+  // Type I (any half-channel model): f'' < 0 on (0,1] makes f' decrease to f'(1) >= 0 (f'(1) = 0, or
+  // -beta f''(1) > 0 with slip), so f' > 0 on [0,1) too.
   if (o.structure.label == "I" && ((c.order == 1 && c.positive && (b.upper() < 1 || !c.b_closed)) ||
                                    (c.order == 2 && !c.positive && (a.lower() > 0 || !c.a_closed)))) {
     r.holds = Tri::yes;

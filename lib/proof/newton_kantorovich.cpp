@@ -260,15 +260,41 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
   };
 
   // ---- DF(x̄) with the correction: finite block as midpoint-radius, spill below as norms ----
+  // With a predictor, DF along the centre is a quadratic in δ (M3.14): DF(x̄(R), R) = D + δ M1 + δ² M2,
+  // D = DF(x̄; R0), M1 = D²F_{R0}[x1, ·] + DF_R(x̄), M2 = D²F_R[x1, ·]; each column of each is kept.
   MidRad D{MatD::Zero(n, n), MatD::Zero(n, n)};
-  Eigen::VectorXd spill = Eigen::VectorXd::Zero(n);
+  MidRad M1{MatD::Zero(n, n), MatD::Zero(n, n)}, M2{MatD::Zero(n, n), MatD::Zero(n, n)};
+  Eigen::VectorXd spill = Eigen::VectorXd::Zero(n), spill1 = Eigen::VectorXd::Zero(n),
+                  spill2 = Eigen::VectorXd::Zero(n);
   {
     std::vector<Id> top;
-    for (int j = 0; j < n; ++j) {
-      const auto col = model::derivative_column(md, Dbar, j);
+    auto store = [&](const model::Value<Id>& col, int j, MidRad& M, Eigen::VectorXd& sp) {
       corrected_top(col, top);
-      for (int i = 0; i < n; ++i) put_entry(D, i, j, top[i]);
-      for (int k = N; k < static_cast<int>(col.fun.size()); ++k) spill(j) = up_add(spill(j), arith::mag_up(col.fun[k]));
+      for (int i = 0; i < n; ++i) put_entry(M, i, j, top[i]);
+      for (int k = N; k < static_cast<int>(col.fun.size()); ++k) sp(j) = up_add(sp(j), arith::mag_up(col.fun[k]));
+    };
+    if (!pred) {
+      for (int j = 0; j < n; ++j) store(model::derivative_column(md, Dbar, j), j, D, spill);
+    } else {
+      const auto conv = [](const model::Model<I>& mm) {
+        return model::convert<Id>(mm, [](const I& v) { return to_id(v); });
+      };
+      const model::Model<Id> m0 = conv(pred->at_R0), mz = conv(pred->at_0), mo = conv(pred->at_1);
+      std::vector<Id> xb, x1;
+      for (const I& v : xbar) xb.push_back(to_id(v));
+      for (const I& v : pred->tangent) x1.push_back(to_id(v));
+      const auto D0 = model::lift(model::constants_of(m0, xb), model::u_of(m0, xb));
+      const auto D1 = model::lift_direction(m0, x1);
+      for (int j = 0; j < n; ++j) {
+        store(model::derivative_column(m0, D0, j), j, D, spill);
+        model::Value<Id> c1 = model::second_derivative_column(m0, D1, j);
+        c1 = model::add_scaled(c1, model::derivative_column(mo, D0, j), Id(1));
+        c1 = model::add_scaled(c1, model::derivative_column(mz, D0, j), Id(-1));
+        store(c1, j, M1, spill1);
+        const model::Value<Id> c2 = model::add_scaled(model::second_derivative_column(mo, D1, j),
+                                                      model::second_derivative_column(mz, D1, j), Id(-1));
+        store(c2, j, M2, spill2);
+      }
     }
   }
   const Eigen::PartialPivLU<MatD> lu(D.mid);
@@ -291,7 +317,19 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
     const MidRad C = arith::product(A, D);
     const Eigen::VectorXd cols = arith::identity_defect_column_norms_up(C);
     double z0 = 0;
-    for (int j = 0; j < n; ++j) z0 = std::max(z0, up_add(cols(j), spill(j)));
+    if (!pred) {
+      for (int j = 0; j < n; ++j) z0 = std::max(z0, up_add(cols(j), spill(j)));
+    } else {  // (M3.14): ‖(I − A DF) e_j‖ ≤ ‖(I − A D) e_j‖ + h ‖A M1 e_j‖ + h² ‖A M2 e_j‖, spills alike
+      const double h = arith::mag_up(pred->delta), h2 = up_mul(h, h);
+      const Eigen::VectorXd c1 = arith::column_norms_up(arith::product(A, M1));
+      const Eigen::VectorXd c2 = arith::column_norms_up(arith::product(A, M2));
+      for (int j = 0; j < n; ++j) {
+        double z = up_add(cols(j), spill(j));
+        z = up_add(z, up_mul(h, up_add(c1(j), spill1(j))));
+        z = up_add(z, up_mul(h2, up_add(c2(j), spill2(j))));
+        z0 = std::max(z0, z);
+      }
+    }
     res.bounds.Z0 = z0;
   }
 
@@ -340,17 +378,31 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
 
   // ---- Y0: ‖A F(x̄)‖ in the candidate's own arithmetic (MPFR when the candidate is) ----
   {
-    // Without a predictor F(x̄) over the box; with one, the mean-value form (M3.11)
-    // F(x̄(R), R) ∈ F(x̄, R0) + [R − R0] (DF(hull) x1 + F(hull; 1) − F(hull; 0)).
+    // Without a predictor F(x̄) over the box; with one, the exact expansion (M3.11b) in δ = R − R0
+    // (F is quadratic in x and affine in R): F(x̄ + δ x1, R0 + δ) = P0 + δ P1 + δ² P2 + δ³ P3.
     model::Value<I> F;
     if (!pred) {
       F = model::residual(m, xbar);
     } else {
-      const auto Dh = model::lift(model::constants_of(m, xhull), model::u_of(m, xhull));
-      model::Value<I> G = model::derivative_apply(m, Dh, pred->tangent);
-      G = model::add_scaled(G, model::residual(pred->at_1, xhull), I(1));
-      G = model::add_scaled(G, model::residual(pred->at_0, xhull), I(-1));
-      F = model::add_scaled(model::residual(pred->at_R0, xbar), G, pred->delta);
+      const auto& p = *pred;
+      const auto Dx = model::lift(model::constants_of(p.at_R0, xbar), model::u_of(p.at_R0, xbar));
+      model::Value<I> P1 = model::derivative_apply(p.at_R0, Dx, p.tangent);
+      P1 = model::add_scaled(P1, model::residual(p.at_1, xbar), I(1));
+      P1 = model::add_scaled(P1, model::residual(p.at_0, xbar), I(-1));
+      model::Value<I> P2 = model::quadratic_part(p.at_R0, p.tangent);
+      P2 = model::add_scaled(P2, model::derivative_apply(p.at_1, Dx, p.tangent), I(1));
+      P2 = model::add_scaled(P2, model::derivative_apply(p.at_0, Dx, p.tangent), I(-1));
+      model::Value<I> P3 = model::quadratic_part(p.at_1, p.tangent);
+      P3 = model::add_scaled(P3, model::quadratic_part(p.at_0, p.tangent), I(-1));
+      // Powers of δ as sets: δ² ∈ [0, h²] when δ straddles 0 (not δ·δ, which would be [−h², h²]).
+      const double h = arith::mag_up(p.delta);
+      const double h2 = up_mul(h, h), h3 = up_mul(h2, h);
+      const bool straddles = p.delta.lower() <= 0 && p.delta.upper() >= 0;
+      const I d2 = straddles ? I(0.0, h2) : p.delta * p.delta;
+      const I d3 = straddles ? I(-h3, h3) : p.delta * p.delta * p.delta;
+      F = model::add_scaled(model::residual(p.at_R0, xbar), P1, p.delta);
+      F = model::add_scaled(F, P2, d2);
+      F = model::add_scaled(F, P3, d3);
     }
     std::vector<I> top(n, I(0));
     for (int i = 0; i < ns; ++i) top[i] = F.rows[i];
@@ -375,36 +427,50 @@ NKResult<I> nk_verify_unguarded(const model::Model<I>& m, const std::vector<I>& 
     res.failure = verdict.failure;
     return res;
   }
-  double r_exist = verdict.existence_radius;
+  // The proof is about the centre: x̄, or x̄(R) = x̄ + δ x1 for each R of the box (M3.11).
+  const double r_exist = verdict.existence_radius;
+  res.certified = true;
+  res.moving_centre = pred != nullptr;
+  if (pred) {
+    res.R0 = pred->R0;
+    res.tangent = pred->tangent;
+    res.delta = pred->delta;
+  }
+  res.centre_existence_radius = r_exist;
+  res.centre_uniqueness_radius = verdict.uniqueness_radius;
+  for (int d = 0; d < 4; ++d) res.centre_c3_error[d] = up_mul(ln.sup[d], r_exist);
+  res.existence_radius = r_exist;
   res.uniqueness_radius = verdict.uniqueness_radius;
-  if (pred) {  // radii about xbar for every R of the box (M3.11)
+  res.c3_error = res.centre_c3_error;
+  const auto Dt = model::lift(model::constants_of(m, xbar), model::u_of(m, xbar));
+  std::array<cheb::Series<I>, 4> D1;  // lift of x1 (zero without a predictor)
+  if (pred) {
+    // Restated about the fixed x̄ (M3.12): ‖x̄(R) − x̄‖ ≤ t = sup|δ| ‖x1‖, and D^d f̄(R) − D^d f̄ =
+    // δ D^d f1 moves by at most sup|δ| times the ℓ¹ norm of its coefficients (|T_k| ≤ 1).
+    D1 = model::lift_direction(m, pred->tangent);
     double t = 0;
     for (const I& v : pred->tangent) t = up_add(t, arith::mag_up(v));
-    t = up_mul(t, arith::mag_up(pred->delta));
-    r_exist = up_add(r_exist, t);
-    if (std::isfinite(res.uniqueness_radius)) res.uniqueness_radius = R::sub_down(res.uniqueness_radius, t);
-    if (!(res.uniqueness_radius > r_exist)) {
-      char buf[240];
-      std::snprintf(buf, sizeof buf,
-                    "box too wide for a statement about the midpoint candidate: r+ - t = %.3g must exceed r- + t = "
-                    "%.3g (t = %.3g = |R - R0| |x1|)",
-                    res.uniqueness_radius, r_exist, t);
-      res.failure = buf;
-      return res;
+    const double h = arith::mag_up(pred->delta);
+    t = up_mul(t, h);
+    res.existence_radius = up_add(r_exist, t);
+    if (std::isfinite(res.uniqueness_radius))
+      res.uniqueness_radius = std::max(0.0, R::sub_down(res.uniqueness_radius, t));
+    for (int d = 0; d < 4; ++d) {
+      double l1 = 0;
+      for (const I& c : D1[d]) l1 = up_add(l1, arith::mag_up(c));
+      res.c3_error[d] = up_add(res.centre_c3_error[d], up_mul(h, l1));
     }
   }
-  res.existence_radius = r_exist;
-  res.certified = true;
 
-  // ---- C³ bounds and values of the true solution ----
-  for (int d = 0; d < 4; ++d) res.c3_error[d] = up_mul(ln.sup[d], r_exist);
-  const auto Dt = model::lift(model::constants_of(m, xbar), model::u_of(m, xbar));
+  // ---- values of the true solution, from the centre for every R of the box (M3.13) ----
   const I r_ball = I(-r_exist, r_exist);
-  auto widen = [&](const I& v, int d) { return v + I(-res.c3_error[d], res.c3_error[d]); };
-  res.fp0 = m.fixed_at_0[1] ? *m.fixed_at_0[1] : xbar[m.free_index(1)] + r_ball;
-  res.fppp0 = widen(cheb::value_at_0(Dt[3]), 3);
-  res.fpp1 = widen(cheb::value_at_1(Dt[2]), 2);
-  res.K = xbar[m.k_index()] + r_ball;
+  auto along = [&](const I& at_bar, const I& at_tangent) { return pred ? at_bar + pred->delta * at_tangent : at_bar; };
+  auto widen = [&](const I& v, int d) { return v + I(-res.centre_c3_error[d], res.centre_c3_error[d]); };
+  auto comp = [&](int i) { return along(xbar[i], pred ? pred->tangent[i] : I(0)); };
+  res.fp0 = m.fixed_at_0[1] ? *m.fixed_at_0[1] : comp(m.free_index(1)) + r_ball;
+  res.fppp0 = widen(along(cheb::value_at_0(Dt[3]), pred ? cheb::value_at_0(D1[3]) : I(0)), 3);
+  res.fpp1 = widen(along(cheb::value_at_1(Dt[2]), pred ? cheb::value_at_1(D1[2]) : I(0)), 2);
+  res.K = comp(m.k_index()) + r_ball;
   return res;
 }
 }  // namespace

@@ -34,6 +34,17 @@ struct NKResult {
   I fp0, fppp0, fpp1, K;
   int modes = 0;
   std::array<double, 4> sup_lift{};  // sup-norm of D^d of a unit vector of X (for c3_error)
+  // The centre the proof is about (docs/method.md (M3.11)): without a predictor x̄ itself and the
+  // same radii and errors as above; with one, x̄(R) = x̄ + (R − R0) x1 and, for each R of the box,
+  // existence within centre_existence_radius of x̄(R), uniqueness in the open ball of radius
+  // centre_uniqueness_radius about x̄(R), sup|f^{(k)} − f̄(R)^{(k)}| ≤ centre_c3_error[k]. Values
+  // and structure labels use these (M3.13): tighter than the fixed-centre ones.
+  bool moving_centre = false;
+  double R0 = 0;              // the point of the predictor (exact double); 0 without one
+  std::vector<I> tangent;     // x1 (empty without a predictor)
+  I delta = I(0);             // encloses R − R0 over the box
+  double centre_existence_radius = 0, centre_uniqueness_radius = 0;
+  std::array<double, 4> centre_c3_error{};
 };
 
 // Encloses everything stated in NKResult for the model m (coefficients may be intervals:
@@ -53,11 +64,14 @@ struct RPredictor {
   std::vector<I> tangent;             // x1, points in the unknown layout
   I delta;                            // encloses R − R0 for every R of the box
   model::Model<I> at_R0, at_0, at_1;  // the model at the point R0, at R = 0 and at R = 1
+  double R0 = 0;                      // the point of the predictor (exact double)
 };
 
-// As above for m over a box of R, with the predictor p. The stated radii are about the fixed
-// point xbar (= x̄(R0)) so that every consumer of a certificate may keep using xbar: existence
-// r₋ + t and uniqueness r₊ − t with t ≥ sup|R − R0| ‖x1‖; not certified when r₊ − t ≤ r₋ + t.
+// As above for m over a box of R, with the predictor p. The proof's radii r₋, r₊ are about the
+// moving centre x̄(R) (centre_* fields); existence_radius = r₋ + t and uniqueness_radius =
+// max(0, r₊ − t) restate them about the fixed point xbar (t ≥ sup|R − R0| ‖x1‖), and c3_error is
+// about xbar too (r₋ plus the certified motion of the lifted centre), so consumers of the fixed
+// candidate stay valid; a box is not refused because the fixed-centre balls are too small.
 template <arith::Interval I>
 NKResult<I> nk_verify(const model::Model<I>& m, const std::vector<I>& xbar, const RPredictor<I>& p);
 

@@ -21,6 +21,27 @@ bool covers(const std::vector<Span>& v, double a, double b) {
     if (s.first <= a && b <= s.second) return true;
   return false;
 }
+// Points in both sorted, merged span lists.
+std::vector<Span> intersect(const std::vector<Span>& a, const std::vector<Span>& b) {
+  std::vector<Span> out;
+  std::size_t i = 0, j = 0;
+  while (i < a.size() && j < b.size()) {
+    const double lo = std::max(a[i].first, b[j].first), hi = std::min(a[i].second, b[j].second);
+    if (lo <= hi) push_merged(out, {lo, hi});
+    (a[i].second < b[j].second) ? ++i : ++j;
+  }
+  return out;
+}
+// Sign cover valid for every member of the family (the series are its vertices, M3.13).
+SignCover cover_all(const std::vector<std::array<cheb::Series<Id>, 4>>& vs, int d, double err) {
+  SignCover c = sign_cover(vs[0][d], err, 0.0, 1.0);
+  for (std::size_t k = 1; k < vs.size(); ++k) {
+    const SignCover o = sign_cover(vs[k][d], err, 0.0, 1.0);
+    c.positive = intersect(c.positive, o.positive);
+    c.negative = intersect(c.negative, o.negative);
+  }
+  return c;
+}
 }  // namespace
 
 SignCover sign_cover(const cheb::Series<Id>& s_full, double err, double a, double b, double tol) {
@@ -79,11 +100,21 @@ std::string spans_text(const std::vector<Span>& v) {
 }
 
 Structure classify(const std::array<cheb::Series<Id>, 4>& D, const std::array<double, 4>& e, const Id& fp0) {
+  return classify(std::vector<std::array<cheb::Series<Id>, 4>>{D}, e, fp0);
+}
+
+Structure classify(const std::vector<std::array<cheb::Series<Id>, 4>>& vertices, const std::array<double, 4>& e,
+                   const Id& fp0) {
   Structure st;
-  const SignCover c0 = sign_cover(D[0], e[0], 0.0, 1.0);
-  const SignCover c1 = sign_cover(D[1], e[1], 0.0, 1.0);
-  const SignCover c2 = sign_cover(D[2], e[2], 0.0, 1.0);
-  const SignCover c3 = sign_cover(D[3], e[3], 0.0, 1.0);
+  if (vertices.empty()) {
+    st.label = "unclassified";
+    st.reason = "no profile given";
+    return st;
+  }
+  const SignCover c0 = cover_all(vertices, 0, e[0]);
+  const SignCover c1 = cover_all(vertices, 1, e[1]);
+  const SignCover c2 = cover_all(vertices, 2, e[2]);
+  const SignCover c3 = cover_all(vertices, 3, e[3]);
   st.reversal_where = c1.negative;
   st.f_negative = c0.negative;
   // f'' < 0 on (0, 1]: f''' < 0 on [0, eta1] (with f''(0) = 0 exactly) and f'' < 0 on [eta1, 1].

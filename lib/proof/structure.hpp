@@ -37,6 +37,12 @@ struct Structure {
 // plane). D = candidate's f, f', f'', f''' as series; e = their certified sup-norm errors.
 Structure classify(const std::array<cheb::Series<arith::Id>, 4>& D, const std::array<double, 4>& e,
                    const arith::Id& fp0);
+// The same for a family of profiles affine in a parameter (an interval box of R, docs/method.md
+// (M3.13)): D^d f = vertex_a + λ (vertex_b − vertex_a), λ ∈ [0, 1]. A sign certified on a span for
+// every vertex holds there for the whole family (an affine function of λ is positive on [0, 1]
+// when it is at both ends), so the covers are intersected; fp0 must enclose f'(0) of every member.
+Structure classify(const std::vector<std::array<cheb::Series<arith::Id>, 4>>& vertices, const std::array<double, 4>& e,
+                   const arith::Id& fp0);
 
 std::string spans_text(const std::vector<Span>& v);
 

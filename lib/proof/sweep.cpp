@@ -69,14 +69,26 @@ std::string split_point(const std::string& lo, const std::string& hi) {
 }
 
 double candidate_distance_up(const std::vector<std::string>& a, const std::vector<std::string>& b) {
+  return centre_distance_up({a, {}, ""}, {b, {}, ""}, "0");
+}
+
+double centre_distance_up(const Centre& a, const Centre& b, const std::string& R_joint) {
   arith::PrecisionScope scope(2200);
+  const Im Rc = arith::from_decimal<Im>(R_joint);
+  // x̄ + (Rc − R0) x1, component i, as an enclosure (exact data, decimal Rc enclosed).
+  const auto comp = [&](const Centre& c, std::size_t i) {
+    if (i >= c.coefficients.size()) return Im(0);
+    Im x = arith::from_decimal<Im>(c.coefficients[i]);
+    if (!c.tangent.empty()) {
+      if (c.tangent.size() != c.coefficients.size())
+        throw std::invalid_argument("tangent and candidate differ in length");
+      x = x + (Rc - arith::from_decimal<Im>(c.R0)) * arith::from_decimal<Im>(c.tangent[i]);
+    }
+    return x;
+  };
   Im sum(0);
-  const std::size_t n = std::max(a.size(), b.size());
-  for (std::size_t i = 0; i < n; ++i) {
-    const Im x = i < a.size() ? arith::from_decimal<Im>(a[i]) : Im(0);
-    const Im y = i < b.size() ? arith::from_decimal<Im>(b[i]) : Im(0);
-    sum = sum + boost::numeric::abs(x - y);
-  }
+  const std::size_t n = std::max(a.coefficients.size(), b.coefficients.size());
+  for (std::size_t i = 0; i < n; ++i) sum = sum + boost::numeric::abs(comp(a, i) - comp(b, i));
   return arith::upper_up(sum);
 }
 

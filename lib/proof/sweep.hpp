@@ -28,6 +28,18 @@ double approx_width(const std::string& lo, const std::string& hi);
 // malformed string.
 double candidate_distance_up(const std::vector<std::string>& a, const std::vector<std::string>& b);
 
+// The centre of a box's proof at R (docs/method.md (M3.11)): x̄ + (R − R0) x1, or x̄ when the
+// tangent is empty. Exact hex (or decimal) strings in the layout of candidate_distance_up.
+struct Centre {
+  std::vector<std::string> coefficients, tangent;
+  std::string R0;  // ignored when tangent is empty
+};
+
+// Upper bound of ‖c_a(R_joint) − c_b(R_joint)‖ (same norm and arithmetic as above; R_joint a
+// decimal string, enclosed). Throws std::invalid_argument on malformed strings or a tangent whose
+// length differs from its candidate's.
+double centre_distance_up(const Centre& a, const Centre& b, const std::string& R_joint);
+
 // (S3): yes when dist + r_exist(b) < r_uniq(a) or dist + r_exist(a) < r_uniq(b), each sum rounded
 // up and r_uniq rounded down (radii as the certificate writes them; "inf" allowed for r_uniq);
 // unsure otherwise (never no: a failed test proves nothing).

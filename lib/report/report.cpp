@@ -39,10 +39,27 @@ struct Solution {
   std::string label;                      // branch label or ""
   bool half = true;                       // a half-channel model (the page's f'(0), f''(1), K columns)
   bool has_profile = false;               // f, fp above are filled
+  bool pipe = false;                      // Taylor-basis pipe: f, fp are F(xi_i), F'(xi_i), xi = r²/a²
 };
 
 std::string key_name(const std::string& where, const std::string& key) {
   return where.empty() ? key : where + "." + key;
+}
+
+// The stored candidate enclosed in double intervals (MPFR coefficients rounded outward); at least 3.
+std::vector<Id> candidate_of(const std::vector<std::string>& hex, const std::string& where) {
+  std::vector<Id> x;
+  for (std::size_t i = 0; i < hex.size(); ++i) {
+    try {
+      x.push_back(arith::from_decimal<Id>(hex[i]));
+    } catch (const std::invalid_argument&) {
+      throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex[" + std::to_string(i) + "]") +
+                         " = \"" + hex[i] + "\" (rule: a hex or decimal number)");
+    }
+  }
+  if (x.size() < 3)
+    throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex") + " is too short");
+  return x;
 }
 
 double decimal_up(const json& j, const std::string& key, const std::string& where) {
@@ -58,6 +75,51 @@ double decimal_up(const json& j, const std::string& key, const std::string& wher
   }
 }
 
+// The porous pipe (docs/models.md §2, docs/report.md (R3)): candidate [F'(0), K, u_0 .. u_{N-1}] in the
+// Taylor basis about xi = 0, F' = F'(0) + sum u_n xi^(n+1)/(n+1)^2, F = F'(0) xi + sum u_n xi^(n+2)/((n+1)^2 (n+2));
+// F(xi_i), F'(xi_i) enclosed as the candidate's value (interval Horner-free sum, xi_i = i/128 exact) +- the
+// certified sup-norm errors on [0,1].
+Solution read_taylor(Solution s) {
+  const json& j = s.j;
+  const std::string& where = s.where;
+  static const char* keys[4] = {"sup|F - Fbar|", "sup|F' - Fbar'|", "sup|F'' - Fbar''|",
+                                "sup|u - ubar| (u = xi F''' + F'')"};
+  if (!j.contains("error_bounds") || !j["error_bounds"].is_object())
+    throw format_error("certificate: key \"" + key_name(where, "error_bounds") + "\" is missing (rule: an object)");
+  for (int k = 0; k < 4; ++k) {
+    const std::string f = std::string("error_bounds.") + keys[k];
+    if (!j["error_bounds"].contains(keys[k]))
+      throw format_error("certificate: key \"" + key_name(where, f) + "\" is missing");
+    s.err[k] = decimal_up(j["error_bounds"][keys[k]], f, where);
+    if (!(s.err[k] >= 0) || !std::isfinite(s.err[k]))
+      throw format_error("certificate: " + key_name(where, f) + " must be a finite number >= 0");
+  }
+  if (!j.contains("bounds") || !j["bounds"].is_object())
+    throw format_error("certificate: key \"" + key_name(where, "bounds") + "\" is missing (rule: an object)");
+  s.half = false;
+  s.pipe = true;
+  const std::vector<Id> x = candidate_of(s.st.candidate_hex, where);
+  for (int i = 0; i <= kSamples; ++i) {
+    const Id xi = Id(i) / Id(kSamples);   // exact: a dyadic
+    Id F = x[0] * xi, Fp = x[0], p = xi;  // p = xi^(n+1)
+    for (std::size_t n = 0; n + 2 < x.size(); ++n) {
+      const Id m = Id(static_cast<double>(n + 1));  // small integers: exact
+      const Id t = x[n + 2] * p / (m * m);
+      Fp += t;
+      F += t * xi / (m + Id(1));
+      p *= xi;
+    }
+    s.f.push_back(F + Id(-s.err[0], s.err[0]));
+    s.fp.push_back(Fp + Id(-s.err[1], s.err[1]));
+  }
+  // F(0) = 0, F(1) = 1, F'(1) = 0 hold exactly for the true solution (V2.1): intersect.
+  s.f[0] = Id(0);
+  s.f[kSamples] = Id(1);
+  s.fp[kSamples] = Id(0);
+  s.has_profile = true;
+  return s;
+}
+
 Solution read_solution(const json& j, const std::string& where) {
   Solution s;
   s.j = j;
@@ -70,11 +132,8 @@ Solution read_solution(const json& j, const std::string& where) {
   }
   s.certified = s.st.status == "certified";
   s.label = s.st.problem.branch;
-  if (s.st.model.is_taylor())  // the page draws Chebyshev profiles only (docs/report.md)
-    throw format_error("certificate: " + key_name(where, "method") + " is \"" + s.st.method + "\" (--model " +
-                       s.st.model.name +
-                       "): not supported by report (rule: Chebyshev-basis certificates; use porecert recheck)");
   if (!s.certified) return s;
+  if (s.st.model.is_taylor()) return read_taylor(std::move(s));
   if (!j.contains("error_bounds") || !j["error_bounds"].is_object())
     throw format_error("certificate: key \"" + key_name(where, "error_bounds") + "\" is missing (rule: an object)");
   for (int k = 0; k < 4; ++k) {
@@ -133,17 +192,7 @@ Solution read_solution(const json& j, const std::string& where) {
     return s;
   }
   // The candidate, enclosed in double intervals (MPFR coefficients are rounded outward): [f'(0), K, u...].
-  std::vector<Id> x;
-  for (std::size_t i = 0; i < s.st.candidate_hex.size(); ++i) {
-    try {
-      x.push_back(arith::from_decimal<Id>(s.st.candidate_hex[i]));
-    } catch (const std::invalid_argument&) {
-      throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex[" + std::to_string(i) + "]") +
-                         " = \"" + s.st.candidate_hex[i] + "\" (rule: a hex or decimal number)");
-    }
-  }
-  if (x.size() < 3)
-    throw format_error("certificate: " + key_name(where, "candidate.coefficients_hex") + " is too short");
+  const std::vector<Id> x = candidate_of(s.st.candidate_hex, where);
   const cheb::Series<Id> u(x.begin() + 2, x.end());
   const auto D = model::lift<Id>({Id(0), x[0], Id(0)}, u);
   // docs/report.md (R1): f(eta) in fbar(eta) +- e_0, f'(eta) in fbar'(eta) +- e_1 at each sample.
@@ -399,9 +448,11 @@ std::string branch_svg(const std::vector<Solution>& sols) {
 std::string profiles_section(const std::vector<Solution>& sols) {
   // Dimensional plots only when there is exactly one certified solution with channel data.
   std::vector<const Solution*> cert;
-  for (const auto& s : sols)
-    if (s.certified && s.has_profile && cert.size() < 6) cert.push_back(&s);  // at most six overlaid profiles
+  for (const auto& s : sols)  // at most six overlaid profiles, all of the first one's geometry (channel or pipe)
+    if (s.certified && s.has_profile && cert.size() < 6 && (cert.empty() || cert[0]->pipe == s.pipe))
+      cert.push_back(&s);
   if (cert.empty()) return "";
+  const bool pipe = cert[0]->pipe;
   std::size_t ncert_all = 0;
   for (const auto& s : sols) ncert_all += s.certified;
   // Colours by label when the labels tell the curves apart, else by position.
@@ -414,6 +465,11 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   std::string pos_label = "eta = y/h  (0 centre plane, ±1 walls)", u_label = "f'(eta)  (u / U(x))",
               v_label = "f(eta)  (v / V)";
   DisplayUnit uu, vu, hu;
+  if (pipe) {
+    pos_label = "r/a  (0 axis, ±1 wall; sampled at xi = r²/a² = i/128)";
+    u_label = "F'(xi)  (axial velocity shape)";
+    v_label = "F(xi)  (stream-function shape)";
+  }
   if (dim) {
     const auto& c = *cert[0]->channel;
     const double umax = std::abs(model::mean_velocity_at_x(c).upper()) * 2, vmax = arith::mag_up(c.V);
@@ -431,15 +487,16 @@ std::string profiles_section(const std::vector<Solution>& sols) {
     Band u{
         solution_name(s, idx, sols.size()), unique_labels ? color_for(s, k) : std::string(kColors[k % 6]), {}, {}, {}},
         v = u;
-    // Mirror to the whole channel: f' is even and f odd in eta (symmetric problem).
+    // Mirror to the whole channel: f' is even and f odd in eta (symmetric problem). The pipe: F(r²/a²)
+    // is even in r; the drawing places sample xi_i at r/a = ±sqrt(xi_i) (position only, not a value).
     for (int i = -kSamples; i <= kSamples; ++i) {
       const int a = std::abs(i);
-      Id fp = s.fp[a], fv = i < 0 ? Id(0) - s.f[a] : s.f[a];
+      Id fp = s.fp[a], fv = i < 0 && !pipe ? Id(0) - s.f[a] : s.f[a];
       if (dim) {
         fp = model::axial_velocity(*s.channel, fp) * Id(uu.factor);
         fv = model::normal_velocity(*s.channel, fv) * Id(vu.factor);
       }
-      const double pos = h_disp * i / kSamples;
+      const double pos = pipe ? (i < 0 ? -1 : 1) * std::sqrt(double(a) / kSamples) : h_disp * i / kSamples;
       u.pos.push_back(pos);
       u.lo.push_back(fp.lower());
       u.hi.push_back(fp.upper());
@@ -456,20 +513,29 @@ std::string profiles_section(const std::vector<Solution>& sols) {
   for (const auto* s : cert) emax = std::max({emax, s->err[0], s->err[1]});
   o << "<p class=\"note\">Shaded: the certified enclosure of the true solution at each of " << 2 * kSamples + 1
     << " sample points across the channel (candidate ± the certified sup-norm error, at most " << num(emax, 3)
-    << " in f and f'; outlines are drawn one pixel wide, so a tube thinner than a pixel shows as a line). "
+    << (pipe ? " in F and F'" : " in f and f'")
+    << "; outlines are drawn one pixel wide, so a tube thinner than a pixel shows as a line). "
        "Between sample points the drawing interpolates; the table below lists enclosures at chosen points.";
   if (ncert_all > cert.size())
     o << " Profiles of the first " << cert.size() << " of " << ncert_all << " certified solutions are shown.";
   o << "</p>\n";
   o << "<div class=\"plots\">"
-    << profile_svg("plot-u", dim ? "Axial velocity u(x, y)" : "Axial velocity shape f'(eta)", ub, u_label, pos_label,
-                   h_disp)
-    << profile_svg("plot-v", dim ? "Wall-normal velocity v(y)" : "Stream-function shape f(eta)", vb, v_label, pos_label,
-                   h_disp)
+    << profile_svg("plot-u",
+                   dim    ? "Axial velocity u(x, y)"
+                   : pipe ? "Axial velocity shape F'(xi), porous pipe"
+                          : "Axial velocity shape f'(eta)",
+                   ub, u_label, pos_label, h_disp)
+    << profile_svg("plot-v",
+                   dim    ? "Wall-normal velocity v(y)"
+                   : pipe ? "Stream-function shape F(xi), porous pipe"
+                          : "Stream-function shape f(eta)",
+                   vb, v_label, pos_label, h_disp)
     << "</div>\n";
   // Enclosures at chosen points, first solution (or each, compactly).
   o << "<table id=\"profile-table\" class=\"data\"><caption>Certified enclosures at chosen "
-       "points</caption><tr><th>solution</th><th>eta = y/h</th><th>f(eta)</th><th>f'(eta)</th>";
+       "points</caption><tr><th>solution</th>"
+    << (pipe ? "<th>xi = r²/a²</th><th>F(xi)</th><th>F'(xi)</th>"
+             : "<th>eta = y/h</th><th>f(eta)</th><th>f'(eta)</th>");
   if (dim) o << "<th>u [m/s]</th><th>v [m/s]</th>";
   o << "</tr>\n";
   for (std::size_t k = 0; k < cert.size(); ++k)
@@ -582,7 +648,9 @@ std::string proof_section(const std::vector<Solution>& sols) {
       o << num(s.err[3], 3);
       first = false;
     }
-  o << " (k = 0..3). “Unique” means unique in the stated ball, not globally.";
+  o << " (k = 0..3; for the porous pipe: sup|F⁽ᵏ⁾ − F̄⁽ᵏ⁾| on [0,1], k = 0..2, and sup|u − ū|, u = ξF''' + F'', "
+       "in the ℓ¹ space of (F'(0), K, Taylor coefficients of u about ξ = 0), docs/models.md §2). “Unique” means unique "
+       "in the stated ball, not globally.";
   for (const auto& s : sols)
     if (s.certified && s.j.contains("c3_uniqueness") && s.j["c3_uniqueness"].is_object() &&
         s.j["c3_uniqueness"].contains("uniqueness_radius"))
