@@ -149,17 +149,6 @@ TEST_CASE("negative: wrong R, wrong chart, bad endpoints all end not certified")
   CHECK(p.certified);
 }
 
-TEST_CASE("branches at R = 100: types I and II certified and disjoint") {
-  proof::CertifyRequest q;
-  q.R_lo = q.R_hi = "100";
-  const auto b = proof::certify_branches(q);
-  REQUIRE(b.solutions.size() >= 2);
-  CHECK(b.pairwise_disjoint);
-  CHECK(b.solutions[0].structure.label == "I");
-  CHECK(b.solutions[1].structure.label == "II");
-  CHECK(b.region.find("not searched") != std::string::npos);  // says what was not searched
-}
-
 TEST_CASE("CLI: a reduced certificate re-checks; an edited value or a cut file is refused") {
   const std::string dir = "/tmp/porecert-test-reduced";
   std::system(("mkdir -p " + dir).c_str());

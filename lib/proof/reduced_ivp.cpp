@@ -6,6 +6,7 @@
 #include <functional>
 #include <optional>
 
+#include "arith/fp_env.hpp"
 #include "candidate/reduced_shooting.hpp"
 #include "model/berman_reduced.hpp"
 #include "proof/lohner.hpp"
@@ -491,6 +492,37 @@ std::string dec_hi(const I& x) {
   return arith::decimal_upper(x);
 }
 
+// R(s) = σ g(σ) (S3) at the nth zero σ of g' for every s in s (thin in use), and σ itself: the
+// validated run (S9) (with the QR set (S13)-(S15) when cfg.lohner), σ isolated by bisection (S8),
+// R by the mean-value form about the midpoint of Σ intersected with the direct product. Returns ""
+// or the failure of the run; the enclosures are set only on success.
+template <Interval I>
+std::string R_at(const I& s, int eps, int nth, const Settings& cfg, I* out_R, I* out_sig) {
+  const Run<I> run = integrate(s, eps, nth, false, cfg);
+  if (!run.ok) return run.failure;
+  const I sig = isolate_zero(run, nth - 1, s, eps, cfg.p);
+  const auto [a, b] = run.zero_runs[nth - 1];
+  const auto st = eval_at(run, a, b, 4, cfg.p, sig);
+  // d/dσ σ g = g + σ g'; the direct form adds the widths of the parts of g over Σ.
+  const I sm(boost::numeric::median(sig));
+  const auto ym = eval_at(run, a, b, 4, cfg.p, sm);
+  const I slope = model::reduced_g(0, sig, s, eps, st[0]) + sig * model::reduced_g(1, sig, s, eps, st[1]);
+  *out_R = boost::numeric::intersect(sig * model::reduced_g(0, sig, s, eps, st[0]),
+                                     sm * model::reduced_g(0, sm, s, eps, ym[0]) + slope * (sig - sm));
+  *out_sig = sig;
+  return "";
+}
+
+Settings settings_for(int eps, int bits) {
+  Settings cfg;
+  if (bits > 53) {
+    cfg.p = std::max(24, bits / 3);
+    cfg.log_tol = std::min(std::log(1e-17), -0.75 * bits * std::log(2.0));
+  }
+  cfg.lohner = eps < 0;  // the fast mode decays: plain intervals wrap (S13)
+  return cfg;
+}
+
 struct Proved {
   ReducedResult r;
   Part part = Part::none;
@@ -508,13 +540,8 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
   r.s_hi = sb;
   r.S_lo = SA;
   r.S_hi = SB;
-  Settings cfg;
-  if constexpr (std::is_same_v<I, Im>) {
-    cfg.p = std::max(24, bits / 3);
-    cfg.log_tol = std::min(std::log(1e-17), -0.75 * bits * std::log(2.0));
-  }
+  const Settings cfg = settings_for(eps, std::is_same_v<I, Im> ? bits : 53);
   r.order = cfg.p;
-  cfg.lohner = eps < 0;  // the fast mode decays: plain intervals wrap (S13)
   const I R = read_interval<I>(R_lo, R_hi);
   const I s_a = arith::from_decimal<I>(sa), s_b = arith::from_decimal<I>(sb);
   const I S_a = arith::from_decimal<I>(SA), S_b = arith::from_decimal<I>(SB);
@@ -534,19 +561,8 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
 
   // 1. R at the bracket ends (thin s).
   auto R_of = [&](const I& s, I* out_R) -> std::string {
-    const Run<I> run = integrate(s, eps, nth, false, cfg);
-    if (!run.ok) return run.failure;
-    const I sig = isolate_zero(run, nth - 1, s, eps, cfg.p);
-    const auto [a, b] = run.zero_runs[nth - 1];
-    const auto st = eval_at(run, a, b, 4, cfg.p, sig);
-    // R = σ g(σ) by the mean-value form about the midpoint of Σ (d/dσ σ g = g + σ g'), intersected
-    // with the direct product: the direct form adds the widths of the parts of g over Σ.
-    const I sm(boost::numeric::median(sig));
-    const auto ym = eval_at(run, a, b, 4, cfg.p, sm);
-    const I slope = model::reduced_g(0, sig, s, eps, st[0]) + sig * model::reduced_g(1, sig, s, eps, st[1]);
-    *out_R = boost::numeric::intersect(sig * model::reduced_g(0, sig, s, eps, st[0]),
-                                       sm * model::reduced_g(0, sm, s, eps, ym[0]) + slope * (sig - sm));
-    return "";
+    I sig;
+    return R_at<I>(s, eps, nth, cfg, out_R, &sig);
   };
   I Ra, Rb;
   if (auto e = R_of(s_a, &Ra); !e.empty()) return fail(Part::integration, "at s_lo: " + e);
@@ -799,6 +815,28 @@ ReducedResult reduced_prove(const std::string& R_lo, const std::string& R_hi, in
                             const std::string& s_hi, const std::string& S_lo, const std::string& S_hi,
                             int precision_bits) {
   return prove_any(R_lo, R_hi, eps, nth, s_lo, s_hi, S_lo, S_hi, precision_bits).r;
+}
+
+ReducedShotEnclosure reduced_R_of_s(const std::string& s, int eps, int nth, int precision_bits) {
+  const arith::FpEnvScope fp_env;
+  ReducedShotEnclosure out;
+  auto run = [&]<Interval I>(I) {
+    const Settings cfg = settings_for(eps, std::is_same_v<I, Im> ? precision_bits : 53);
+    I R, sig;
+    out.failure = R_at<I>(arith::from_decimal<I>(s), eps, nth, cfg, &R, &sig);
+    out.ok = out.failure.empty();
+    if (out.ok) {
+      out.R = arith::to_id(R);
+      out.sigma = arith::to_id(sig);
+    }
+  };
+  if (precision_bits <= 53) {
+    run(Id(0));
+  } else {
+    arith::PrecisionScope scope(precision_bits);
+    run(Im(0));
+  }
+  return out;
 }
 
 long double reduced_guess(double R, int eps, int nth, int sign_s) {

@@ -53,6 +53,17 @@ ReducedResult reduced_prove(const std::string& R_lo, const std::string& R_hi, in
 ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, int eps, int nth, long double s_guess,
                               int precision_bits = 0);
 
+// Enclosures of σ, the nth zero of g' on (0, t_max], and of R(s) = σ g(σ) (S3) for the exact s
+// (decimal or hex string), from the same validated run as the proof (with the QR set (S13)-(S15)
+// for eps = −1). Loose where the run is long (widths grow with the step count); ok = false with the
+// failed check when the run cannot certify the zero (no claim then). Exposed for tests.
+struct ReducedShotEnclosure {
+  bool ok = false;
+  std::string failure;
+  arith::Id sigma, R;
+};
+ReducedShotEnclosure reduced_R_of_s(const std::string& s, int eps, int nth, int precision_bits = 53);
+
 // A starting shape parameter for the branch (eps, nth) at R from the asymptotics (docs/method.md §S):
 // type I / II: s ≈ ∓exp(−R/4.4…); injection: s ≈ −π/(2R); type III (eps = −1, nth = 2, R > 0) by
 // log-log interpolation in a table of measured candidates (R = 20 … 1000).
