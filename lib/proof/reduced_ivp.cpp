@@ -236,7 +236,7 @@ struct Settings {
   int p = 24;
   double log_tol = std::log(1e-17);
   double t_max = 1000;
-  int max_steps = 20000;  // the value runs at R = 1000 (any type) take fewer than 1000 steps
+  int max_steps = 10000;  // type III at R = 1000 takes 2070 steps, types I/II there 179
 };
 
 // The Lohner step (S14) for the extended state X = (y, s) (n = nc + 1; s' = 0): with Ψ(X) the Taylor
@@ -875,6 +875,12 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
   const int bits = precision_bits != 0 ? precision_bits : (std::fabs(*sbar) > 1e-140L ? 53 : 128);
   const long double R0 = arith::lower_down(Rint), R1 = arith::upper_up(Rint);
   long double margin = (bits <= 53 ? 2e-14L : std::ldexp(1.0L, -std::min(bits, 60) + 10)) * (1 + std::fabs(Rmid));
+  if (eps < 0 && Rint.lower() > 0) {
+    // Type III: the enclosure of R(s̄) is far wider than the default margin (2e-7 at R = 1000), so
+    // start the bracket outside it instead of widening it attempt by attempt.
+    const auto e = reduced_R_of_s(exact_string(*sbar, bits), eps, nth, bits);
+    if (e.ok) margin = std::max(margin, static_cast<long double>(2 * arith::width_up(e.R)));
+  }
   std::vector<std::string> log;
   log.push_back("candidate: reduced shooting, eps = " + std::to_string(eps) + ", zero " + std::to_string(nth) +
                 ", s = " + exact_string(*sbar, 53));
@@ -891,7 +897,9 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
     fail.log = log;
     return fail;
   }
-  long double rho = std::max(std::fabs(*sbar) / 32, 2 * (*sb - *sa));  // S about s̄: uniqueness set
+  // S about s̄: uniqueness set. Type III: the variational run over a wide S loses the QR set (its
+  // Jacobian over the hull grows without bound), so start S at twice the bracket.
+  long double rho = eps < 0 && Rint.lower() > 0 ? 2 * (*sb - *sa) : std::max(std::fabs(*sbar) / 32, 2 * (*sb - *sa));
   for (int attempt = 0; attempt < 12; ++attempt) {
     const long double lo = std::min(*sa, *sbar), hi = std::max(*sb, *sbar);
     const long double SA = std::min(lo, *sbar - rho), SB = std::max(hi, *sbar + rho);
