@@ -90,6 +90,15 @@ void check_update(std::mt19937_64& rng, int n) {
     }
   const auto s = proof::lohner::update<Id>(v, M, r);
   REQUIRE(s.n == n);
+  {
+    // Not vacuous: the hull of the new set is not much wider than the plain box of v + M r.
+    const auto h = proof::lohner::hull(s);
+    for (int i = 0; i < n; ++i) {
+      Id box = v[i];
+      for (int k = 0; k < n; ++k) box = box + M[i * n + k] * r[k];
+      CHECK(arith::width_up(h[i]) <= 4.0 * n * arith::width_up(box) + 1e-300);
+    }
+  }
   std::vector<Big> A(n * n);
   for (int k = 0; k < n * n; ++k) A[k] = Big(s.A[k]);
   for (int trial = 0; trial < 16; ++trial) {
