@@ -3,7 +3,7 @@ BUILD ?= build
 JOBS ?= 2
 PACKAGES := $(shell grep -v '^\#' .ci/packages)
 
-.PHONY: setup configure build demo test test-asan fuzz-smoke fuzz-long adversarial-long bench clean format
+.PHONY: setup configure build demo test test-asan fuzz-smoke fuzz-long adversarial-long bench bench-sweep clean format
 
 setup:
 	@missing=""; for p in $(PACKAGES); do \
@@ -64,6 +64,10 @@ adversarial-long: build
 bench: configure
 	cmake --build $(BUILD) -j $(JOBS) --target porecert_bench
 	./$(BUILD)/porecert_bench
+
+# Sweep reach (docs/performance.md): tens of minutes on 2 cores.
+bench-sweep: build
+	tests/bench/sweep_reach.sh $(BUILD)
 
 format:
 	find lib verify tests -name '*.hpp' -o -name '*.cpp' | xargs clang-format -i

@@ -67,6 +67,55 @@ TEST_CASE("gluing (S3): strict inclusion of one existence ball in the other's un
   CHECK(s::glued(5.0, "0.1", "inf", "0.1", "0.01") == Tri::yes);
 }
 
+TEST_CASE("mixed joint (S3''): the Chebyshev box's solution read in the reduced chart") {
+  using porecert::arith::Tri;
+  namespace s = porecert::proof::sweep;
+  // Exact case: x = (f'(0), K, u) = (3/2, -3, [-3]) is the R = 0 profile f = (3η − η³)/2 (f''' = −3);
+  // at R = 1 its shape parameter s = f'''(0) / (R f'(0)²) is −3 / (9/4) = −4/3 (docs/method.md (S3)).
+  const s::Centre c{{"0x1.8p0", "-0x1.8p1", "-0x1.8p1"}, {}, ""};
+  const auto p0 = s::berman_chart_point(c, 0, "1");
+  CHECK(p0.s.lower() <= -4.0 / 3);
+  CHECK(p0.s.upper() >= -4.0 / 3);
+  CHECK(p0.s.upper() - p0.s.lower() < 1e-15);
+  // u_1 T_1(−1) = −u_1 enters with its sign: u = −3 + 0.5 T_1 gives f'''(0) = −3.5.
+  const auto p1 = s::berman_chart_point({{"0x1.8p0", "0", "-0x1.8p1", "0x1p-1"}, {}, ""}, 0, "1");
+  CHECK(p1.s.lower() <= -3.5 / 2.25);
+  CHECK(p1.s.upper() >= -3.5 / 2.25);
+  // Moving centre: x̄ + (R − R0) x1 with x1 = (0, 0, −1): at R = 1, R0 = 0.5, f'''(0) = −3.5.
+  const auto p2 = s::berman_chart_point({{"0x1.8p0", "0", "-0x1.8p1"}, {"0", "0", "-0x1p0"}, "0.5"}, 0, "1");
+  CHECK(p2.s.lower() <= -3.5 / 2.25);
+  CHECK(p2.s.upper() >= -3.5 / 2.25);
+  // A ball of radius 0.01 widens s; it still holds the exact −4/3.
+  const auto pr = s::berman_chart_point(c, 0.01, "1");
+  CHECK(pr.s.lower() < -4.0 / 3 - 1e-3);
+  CHECK(pr.s.upper() > -4.0 / 3 + 1e-3);
+  CHECK(s::glued_mixed(pr, true, 1, 1, "-1.4", "-1.3", "1") == Tri::yes);
+  CHECK(s::glued_mixed(pr, true, 1, 1, "-1.335", "-1.3", "1") == Tri::unsure);  // s sticks out of S
+  CHECK(s::glued_mixed(pr, false, 1, 1, "-1.4", "-1.3", "1") == Tri::unsure);   // f' > 0 not certified
+  CHECK(s::glued_mixed(pr, true, -1, 1, "-1.4", "-1.3", "1") == Tri::unsure);   // other eps
+  CHECK(s::glued_mixed(pr, true, 1, 2, "-1.4", "-1.3", "1") == Tri::unsure);    // wall at the 2nd zero
+  // f'(0) may vanish: s is the whole line and nothing glues.
+  const auto pz = s::berman_chart_point({{"0x1p-10", "0", "-0x1.8p1"}, {}, ""}, 0.01, "1");
+  CHECK(std::isinf(pz.s.upper()));
+  CHECK(s::glued_mixed(pz, true, 1, 1, "-1e300", "1e300", "1") == Tri::unsure);
+  CHECK_THROWS_AS(s::berman_chart_point(c, 0, "0"), std::invalid_argument);
+}
+
+TEST_CASE("sweep across R = 1: Chebyshev box and reduced box glued (S3'')") {
+  fs::create_directories(dir);
+  const auto r = run(std::string(PORECERT_BINARY) + " sweep --R=0.9:1.1 --width 0.1 --json " + dir + "/mixed.json");
+  CHECK(r.rc == 0);
+  const json d = json::parse(slurp(dir + "/mixed.json"));
+  CHECK(d["covered"] == true);
+  REQUIRE(d["boxes"].size() == 2);
+  CHECK(d["boxes"][0]["certificate"]["method"] == "newton-kantorovich");
+  CHECK(d["boxes"][1]["certificate"]["method"] == "reduced-ivp");
+  REQUIRE(d["joints"].size() == 1);
+  CHECK(d["joints"][0]["glued"] == "glued");
+  CHECK(d["joints"][0].contains("shape_parameter"));
+  CHECK(d["one_branch"] == true);
+}
+
 TEST_CASE("journal: header check, truncated last line discarded, damaged middle line refused") {
   fs::create_directories(dir);
   const std::string path = dir + "/unit.journal";

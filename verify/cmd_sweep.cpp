@@ -30,7 +30,7 @@ namespace sw = certificate::sweep;
 using nlohmann::json;
 
 struct SweepOptions {
-  std::string R, branch = "I", json, journal, width = "0.005", min_width = "0.00001";
+  std::string R, branch = "I", json, journal, width = "auto", min_width = "0.00001";
   int jobs = 0;
   bool resume = false, stop_at_gap = false;
   ModelOptions mo;
@@ -84,7 +84,8 @@ std::string check_width(const std::string& opt, const std::string& v) {
   try {
     x = arith::from_decimal<arith::Id>(v);
   } catch (const std::invalid_argument&) {
-    throw input_error(opt + ": '" + v + "' is not a decimal number");
+    throw input_error(opt + ": '" + v + "' is not a decimal number" +
+                      (opt == "--width" ? std::string(" (rule: a decimal > 0, or auto)") : std::string()));
   }
   if (!(x.lower() > 0)) throw input_error(opt + ": '" + v + "' must be > 0");
   return v;
@@ -129,9 +130,9 @@ int run_sweep(const SweepOptions& v) {
   if (!p.model.is_berman() && p.branch != "I")
     throw input_error("--branch: '" + p.branch + "' is for Berman's model only (rule: with --model " + p.model.name +
                       " sweep --branch I, the branch continued from R = 0; docs/models.md §6)");
-  p.width = check_width("--width", v.width);
+  p.width = v.width == "auto" ? v.width : check_width("--width", v.width);
   p.min_width = check_width("--min-width", v.min_width);
-  if (arith::tri_less(arith::from_decimal<arith::Id>(p.width), arith::from_decimal<arith::Id>(p.min_width)) ==
+  if (p.width != "auto" && arith::tri_less(arith::from_decimal<arith::Id>(p.width), arith::from_decimal<arith::Id>(p.min_width)) ==
       arith::Tri::yes)
     throw input_error("--min-width: " + p.min_width + " exceeds --width " + p.width + " (rule: min-width <= width)");
   p.stop_at_gap = v.stop_at_gap;
@@ -298,7 +299,7 @@ Action register_sweep(CLI::App& app) {
   sub->add_option("--jobs", v->jobs, "Threads (default: the number of cores)");
   sub->add_flag("--resume", v->resume, "Continue the interrupted sweep recorded in the journal");
   sub->add_option("--journal", v->journal, "Journal file (default: JSON path + .journal, or porecert-sweep.journal)");
-  sub->add_option("--width", v->width, "Width of the initial boxes (default 0.005)");
+  sub->add_option("--width", v->width, "Width of the initial boxes, or auto (default: 0.25, and 1 for type I boxes of Berman's problem at R >= 1; docs/sweep.md S2)");
   sub->add_option("--min-width", v->min_width,
                   "A box narrower than this that fails is reported as a gap (default 1e-5)");
   sub->add_flag("--stop-at-gap", v->stop_at_gap, "Stop at the first gap (always on for II and III)");

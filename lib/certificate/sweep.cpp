@@ -84,14 +84,40 @@ json identity(const Params& p) {
   return id;
 }
 
+// Width of the initial boxes for --width auto (docs/sweep.md S2): 1 where Berman's type I boxes
+// go to the reduced method (R >= 1, one proof per unit box up to R of a few hundred), 0.25 for the
+// Newton-Kantorovich boxes with the moving centre (every other case).
+static std::vector<std::pair<std::string, std::string>> auto_segments(const Params& p, std::vector<std::string>* w) {
+  std::vector<std::pair<std::string, std::string>> seg;
+  const bool reduced = p.model.is_berman() && p.branch == "I";
+  const auto less = [](const std::string& a, const std::string& b) {
+    return arith::tri_less(arith::from_decimal<arith::Id>(a), arith::from_decimal<arith::Id>(b)) == arith::Tri::yes;
+  };
+  if (reduced && less(p.R_lo, "1") && less("1", p.R_hi)) {
+    seg = {{p.R_lo, "1"}, {"1", p.R_hi}};
+    *w = {"0.25", "1"};
+  } else {
+    seg = {{p.R_lo, p.R_hi}};
+    *w = {reduced && !less(p.R_lo, "1") ? "1" : "0.25"};
+  }
+  return seg;
+}
+
 Plan make_plan(const Params& p) {
-  const double total = proof::sweep::approx_width(p.R_lo, p.R_hi);
-  const double w = arith::mid_double(arith::from_decimal<arith::Id>(p.width));
-  if (!(total > 0) || !(w > 0)) throw std::invalid_argument("empty range or width");
-  const double n = std::ceil(total / w * (1 - 1e-12));
-  if (n > 1e7) throw std::invalid_argument("more than 10^7 initial boxes");
+  std::vector<std::string> widths;
+  const auto seg = p.width == "auto" ? auto_segments(p, &widths)
+                                     : std::vector<std::pair<std::string, std::string>>{{p.R_lo, p.R_hi}};
+  if (p.width != "auto") widths = {p.width};
   Plan plan;
-  plan.points = proof::sweep::cut_points(p.R_lo, p.R_hi, std::max(1L, static_cast<long>(n)));
+  for (std::size_t k = 0; k < seg.size(); ++k) {
+    const double total = proof::sweep::approx_width(seg[k].first, seg[k].second);
+    const double w = arith::mid_double(arith::from_decimal<arith::Id>(widths[k]));
+    if (!(total > 0) || !(w > 0)) throw std::invalid_argument("empty range or width");
+    const double n = std::ceil(total / w * (1 - 1e-12));
+    if (n > 1e7) throw std::invalid_argument("more than 10^7 initial boxes");
+    const auto pts = proof::sweep::cut_points(seg[k].first, seg[k].second, std::max(1L, static_cast<long>(n)));
+    plan.points.insert(plan.points.end(), pts.begin() + (plan.points.empty() ? 0 : 1), pts.end());
+  }
   plan.descending = fold_branch(p);
   const int m = static_cast<int>(plan.points.size()) - 1;
   for (int k = 0; k < m; ++k) plan.order.push_back(plan.descending ? m - 1 - k : k);
@@ -258,6 +284,7 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
   // Gluing of neighbours (S3) and gaps.
   json joints = json::array(), gaps = json::array();
   bool covered = true, all_glued = true;
+  const bool p_model_berman = p.model.is_berman();
   std::size_t n_cert = 0;
   for (std::size_t i = 0; i < boxes.size(); ++i) {
     const bool ci = boxes[i]["status"] == "certified";
@@ -304,11 +331,36 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
         const int sa = sign(boxes[i]), sb = sign(boxes[i + 1]);
         g = inside(ca, cb) || inside(cb, ca) || (sa != 0 && sa == sb && meet(ca, cb));
       }
+      if (method(boxes[i]) != method(boxes[i + 1])) {
+        // (S3''): the Newton–Kantorovich box's solution at the shared R, read in the reduced chart.
+        const json& nk = method(boxes[i]) == "reduced-ivp" ? boxes[i + 1] : boxes[i];
+        const json& rd = method(boxes[i]) == "reduced-ivp" ? boxes[i] : boxes[i + 1];
+        const json& c = nk["certificate"];
+        proof::sweep::Centre x{c["candidate"]["coefficients_hex"].get<std::vector<std::string>>(), {}, ""};
+        std::string r = nk["existence_radius"].get<std::string>();
+        if (c.contains("moving_centre")) {
+          x.tangent = c["candidate"]["tangent_hex"].get<std::vector<std::string>>();
+          x.R0 = c["moving_centre"]["R0_hex"].get<std::string>();
+          r = c["moving_centre"]["existence_radius"].get<std::string>();
+        }
+        const std::string Rj = boxes[i]["R"][1].get<std::string>();
+        const auto p =
+            proof::sweep::berman_chart_point(x, arith::from_decimal<arith::Id>(r).upper(), Rj);
+        const json& rc = rd["certificate"]["candidate"];
+        const bool fp_pos = c.contains("structure") && c["structure"].value("flow_reversal", "") == "no";
+        g = p_model_berman && proof::sweep::glued_mixed(p, fp_pos, rc.value("eps", 0), rc.value("nth_zero", 0),
+                                                        rc["S_lo"].get<std::string>(), rc["S_hi"].get<std::string>(),
+                                                        Rj) == arith::Tri::yes;
+        j["shape_parameter"] = json::array({arith::decimal_lower(p.s, 17), arith::decimal_upper(p.s, 17)});
+      }
       j["glued"] = g ? "glued" : "not glued";
       if (!g)
-        j["reason"] =
-            "neither box's s bracket lies in the other's uniqueness set S, nor do the two sets S meet with one sign "
-            "of dR/ds (docs/sweep.md (S3))";
+        j["reason"] = method(boxes[i]) != method(boxes[i + 1])
+                          ? "the Newton-Kantorovich box's solution at the shared R is not certainly in the reduced "
+                            "box's chart (f' > 0 on [0,1), same eps, first zero of f') with s inside its set S "
+                            "(docs/sweep.md (S3''))"
+                          : "neither box's s bracket lies in the other's uniqueness set S, nor do the two sets S "
+                            "meet with one sign of dR/ds (docs/sweep.md (S3))";
     } else if (ci && cj) {
       // Distance of the proofs' centres at the shared R (S3): x̄ + (R − R0) x1 for a moving centre,
       // with the radii about it; the fixed-centre radii otherwise.

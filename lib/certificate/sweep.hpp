@@ -20,7 +20,7 @@ inline constexpr const char* kFormat = "porecert-sweep";
 struct Params {
   std::string R_lo, R_hi;             // decimal strings, lo < hi
   std::string branch = "I";           // I, II or III
-  std::string width = "0.005";        // width of the initial boxes (S2)
+  std::string width = "auto";         // width of the initial boxes, or "auto" (S2)
   std::string min_width = "0.00001";  // a box narrower than this that fails is a gap (S2)
   bool stop_at_gap = false;           // always true for II/III (S4)
   int max_modes = 3000;

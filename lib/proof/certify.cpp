@@ -276,6 +276,10 @@ std::optional<ReducedPick> reduced_pick(const CertifyRequest& req, double R) {
 // Newton-Kantorovich boxes (M3.11) are as wide and glue with each other; for injection the reduced
 // method's boxes were narrower than Newton-Kantorovich's in our runs (docs/sweep.md).
 constexpr double kReducedBoxFrom = 1;
+// A box of suction at or above this that the reduced method cannot prove is not retried with
+// Newton-Kantorovich: that proof needs thousands of modes there and fails on such a box after
+// tens of seconds (measured [40, 45]: 4.8 s, [100, 110]: 110 s); a sweep bisects instead.
+constexpr double kNoFallbackBoxFrom = 30;
 
 CertifyOutcome certify_berman(const CertifyRequest& req) {
   if (req.model.is_taylor()) return certify_taylor(req);  // the porous pipe (docs/models.md §2)
@@ -305,6 +309,11 @@ CertifyOutcome certify_berman(const CertifyRequest& req) {
     }
     CertifyOutcome r = certify_reduced(req, pick->eps, pick->nth, pick->guess);
     if (r.certified || req.method == "reduced") return r;
+    if (box && Rint.lower() >= kNoFallbackBoxFrom) {
+      r.log.push_back("no Newton-Kantorovich retry for a box with R >= " + std::to_string(int(kNoFallbackBoxFrom)) +
+                      " (docs/sweep.md S2): narrower boxes instead");
+      return r;
+    }
     pre = r.log;
     pre.push_back("reduced method: " + r.failure + "; trying Newton-Kantorovich");
   }

@@ -875,6 +875,9 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
   const int bits = precision_bits != 0 ? precision_bits : (std::fabs(*sbar) > 1e-140L ? 53 : 128);
   const long double R0 = arith::lower_down(Rint), R1 = arith::upper_up(Rint);
   long double margin = (bits <= 53 ? 2e-14L : std::ldexp(1.0L, -std::min(bits, 60) + 10)) * (1 + std::fabs(Rmid));
+  // A box's bracket reaches a hundredth of its width past each end, so that a neighbouring proof's
+  // solution at the shared R falls inside S with room to spare (docs/sweep.md (S3'')).
+  if (R1 > R0) margin = std::max(margin, (R1 - R0) / 100);
   if (eps < 0 && Rint.lower() > 0) {
     // Type III: the enclosure of R(s̄) is far wider than the default margin (2e-7 at R = 1000), so
     // start the bracket outside it instead of widening it attempt by attempt.

@@ -122,18 +122,19 @@ Structure classify(const std::vector<std::array<cheb::Series<Id>, 4>>& vertices,
   for (auto it = c2.negative.rbegin(); it != c2.negative.rend(); ++it)
     if (it->second >= eta1 && it->first < eta1) eta1 = it->first;
   const bool type1 = eta1 < 1.0 && (eta1 == 0.0 || covers(c3.negative, 0.0, eta1));
-  // Then f' > 0 on [0,1) follows from f'(1) = 0, which the true solution meets exactly.
+  // Then f' > 0 on [0,1) follows from f'(1) >= 0, which the true solution meets exactly: f'(1) = 0,
+  // or f'(1) = -beta f''(1) > 0 with slip beta > 0 (f''(1) < 0 here).
   if (!c1.negative.empty()) {
     st.reversal = arith::Tri::yes;
   } else if (type1) {
     st.reversal = arith::Tri::no;
   }
-  char buf[260];
+  char buf[320];
   if (type1) {
     st.label = "I";
     std::snprintf(buf, sizeof buf,
-                  "certified: f''' < 0 on [0, %.3g] and f'' < 0 on [%.3g, 1]; with f''(0) = 0 and f'(1) = 0 this gives "
-                  "f'' < 0 on (0,1] and f' > 0 on [0,1)",
+                  "certified: f''' < 0 on [0, %.3g] and f'' < 0 on [%.3g, 1]; with f''(0) = 0 and f'(1) >= 0 (f'(1) = 0, "
+                  "or -beta f''(1) > 0 with slip) this gives f'' < 0 on (0,1] and f' > 0 on [0,1)",
                   eta1, eta1);
     st.reason = buf;
   } else if (fp0.upper() < 0) {

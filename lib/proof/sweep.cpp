@@ -92,6 +92,43 @@ double centre_distance_up(const Centre& a, const Centre& b, const std::string& R
   return arith::upper_up(sum);
 }
 
+ChartPoint berman_chart_point(const Centre& c, double r_up, const std::string& R_joint) {
+  arith::PrecisionScope scope(2200);
+  const Im Rc = arith::from_decimal<Im>(R_joint);
+  if (!(arith::lower_down(Rc) > 0 || arith::upper_up(Rc) < 0))
+    throw std::invalid_argument("berman_chart_point: R = " + R_joint + " must be nonzero");
+  if (c.coefficients.size() < 3) throw std::invalid_argument("berman_chart_point: candidate shorter than 3");
+  if (!c.tangent.empty() && c.tangent.size() != c.coefficients.size())
+    throw std::invalid_argument("tangent and candidate differ in length");
+  const Im delta = c.tangent.empty() ? Im(0) : Rc - arith::from_decimal<Im>(c.R0);
+  const auto comp = [&](std::size_t i) {
+    Im x = arith::from_decimal<Im>(c.coefficients[i]);
+    if (!c.tangent.empty()) x = x + delta * arith::from_decimal<Im>(c.tangent[i]);
+    return x;
+  };
+  const Im ball(-r_up, r_up);
+  const Im fp0 = comp(0) + ball;
+  Im u0(0);  // u(0) = Σ_k u_k T_k(−1) = Σ_k (−1)^k u_k (cheb::value_at_0)
+  for (std::size_t i = 2; i < c.coefficients.size(); ++i) u0 = (i % 2 == 0) ? u0 + comp(i) : u0 - comp(i);
+  const Im fppp0 = u0 + ball;
+  ChartPoint p{arith::to_id(fp0), Id::whole()};
+  if (arith::lower_down(fp0) > 0 || arith::upper_up(fp0) < 0)
+    p.s = arith::to_id(fppp0 / (Rc * boost::numeric::square(fp0)));
+  return p;
+}
+
+arith::Tri glued_mixed(const ChartPoint& p, bool f_prime_positive, int eps, int nth, const std::string& S_lo,
+                       const std::string& S_hi, const std::string& R_joint) {
+  const Id Rc = arith::from_decimal<Id>(R_joint);
+  const int sign_R = Rc.lower() > 0 ? 1 : Rc.upper() < 0 ? -1 : 0;
+  if (!f_prime_positive || !(p.fp0.lower() > 0) || sign_R == 0 || eps != sign_R || nth != 1)
+    return arith::Tri::unsure;
+  arith::PrecisionScope scope(1100);  // the stored S ends (at most 1024 bits) are exact here
+  const double lo_up = arith::upper_up(arith::from_decimal<Im>(S_lo));
+  const double hi_down = arith::lower_down(arith::from_decimal<Im>(S_hi));
+  return lo_up < p.s.lower() && p.s.upper() < hi_down ? arith::Tri::yes : arith::Tri::unsure;
+}
+
 arith::Tri glued(double dist_up, const std::string& exist_a, const std::string& uniq_a, const std::string& exist_b,
                  const std::string& uniq_b) {
   const auto uniq_down = [](const std::string& s) {

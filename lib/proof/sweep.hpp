@@ -40,6 +40,24 @@ struct Centre {
 // length differs from its candidate's.
 double centre_distance_up(const Centre& a, const Centre& b, const std::string& R_joint);
 
+// The solution a Newton–Kantorovich box of plain Berman proves at the decimal R_joint, in the chart
+// of the reduced method (docs/method.md (S3)): encloses f'(0) and s = f'''(0) / (R f'(0)²) for
+// every x within r_up of the centre c at R_joint (ℓ¹ norm of §M3, weight 1, layout
+// [f'(0), K, u_0, ...] with u = f''', so |Δf'(0)| ≤ r and |Δf'''(0)| ≤ r as |T_k(−1)| = 1).
+// Loose only by MPFR rounding at 2200 bits. s is the whole line when f'(0) may vanish. Throws
+// std::invalid_argument on malformed strings, a candidate shorter than 3 or R_joint = 0.
+struct ChartPoint {
+  arith::Id fp0, s;
+};
+ChartPoint berman_chart_point(const Centre& c, double r_up, const std::string& R_joint);
+
+// (S3''), docs/sweep.md: a reduced box (eps, nth, uniqueness set [S_lo, S_hi], exact strings)
+// next to a Newton–Kantorovich box at R_joint whose certified structure gives f' > 0 on [0, 1)
+// (f_prime_positive): yes when f'(0) > 0, eps = sign(R_joint), nth = 1 and the chart point's s
+// lies strictly inside (S_lo, S_hi); unsure otherwise (never no).
+arith::Tri glued_mixed(const ChartPoint& p, bool f_prime_positive, int eps, int nth, const std::string& S_lo,
+                       const std::string& S_hi, const std::string& R_joint);
+
 // (S3): yes when dist + r_exist(b) < r_uniq(a) or dist + r_exist(a) < r_uniq(b), each sum rounded
 // up and r_uniq rounded down (radii as the certificate writes them; "inf" allowed for r_uniq);
 // unsure otherwise (never no: a failed test proves nothing).
