@@ -56,6 +56,29 @@ TEST_CASE("below the fold (R = 11; fold near 12.165, Robinson 1976 from memory) 
   CHECK(b.region.find("grid") != std::string::npos);  // the searched region is stated
 }
 
+TEST_CASE("R = 100: types I, II by the reduced method and type III by its eps = -1 chart, disjoint") {
+  // Above the Chebyshev search (kSearchUpToR) all three come from the reduced method (docs/method.md
+  // §S, (S13)-(S15) for type III); the labels are certified structure, the disjointness from enclosures.
+  proof::CertifyRequest q;
+  q.R_lo = q.R_hi = "100";
+  const auto b = proof::certify_branches(q);
+  REQUIRE(b.solutions.size() == 3);
+  CHECK(b.pairwise_disjoint);
+  const auto* s1 = with_label(b, "I");
+  const auto* s2 = with_label(b, "II");
+  const auto* s3 = with_label(b, "III");
+  REQUIRE(s1);
+  REQUIRE(s2);
+  REQUIRE(s3);
+  for (const auto* s : {s1, s2, s3}) CHECK(s->method == "reduced-ivp");
+  CHECK(proof::distinct(*s1, *s3) == arith::Tri::yes);
+  CHECK(proof::distinct(*s2, *s3) == arith::Tri::yes);
+  CHECK(s3->fp0.hi_d < 0);  // reversed centre-plane flow, certified
+  CHECK(s3->structure.reversal == arith::Tri::yes);
+  CHECK(b.region.find("not searched") == std::string::npos);
+  CHECK(b.region.find("type III") != std::string::npos);  // what was searched for type III is stated
+}
+
 TEST_CASE("sign cover never claims a sign it cannot prove") {
   // g(η) = η − 1/2 with error 0.01: negative on [0, 0.49), positive on (0.51, 1], unsure between.
   cheb::Series<arith::Id> g = {arith::Id(0), arith::Id(0.5)};  // (1/2)(2η − 1)

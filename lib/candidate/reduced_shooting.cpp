@@ -85,6 +85,9 @@ std::optional<LD> reduced_solve(const ReducedBranch& b, LD R_target, LD s0, int 
     if (step < -2) step = -2;
     mu -= step;
     if (std::fabs(F) <= 1e-17L * std::fabs(R_target) + 1e-17L) return sign * std::exp(mu);
+    // Stagnation at the shooting's noise floor: for type III at large R the rounding of the shot
+    // (|F| ≈ 1e-13 at R = 1000) is above the tolerance; a Newton step this small has converged.
+    if (std::fabs(step) <= 1e-13L) return sign * std::exp(mu);
   }
   return std::nullopt;
 }

@@ -51,8 +51,6 @@ S tpow(int n, const std::array<S, 4>& pw, int k) {
 template <class S>
 void reduced_taylor(const ReducedState<S>& y, const S& t0, const S& s, int eps, bool variational, int kmax,
                     std::vector<S>& Z, std::vector<S>& V) {
-  using detail::tpow;
-  using detail::tpow_times;
   Z.assign(kmax + 1, S(0));
   V.assign(variational ? kmax + 1 : 0, S(0));
   const std::array<S, 4> pw{S(1), t0, t0 * t0, t0 * t0 * t0};
@@ -88,29 +86,71 @@ void reduced_taylor(const ReducedState<S>& y, const S& t0, const S& s, int eps, 
     V[3] = y[7] / S(6);
   }
   for (int i = 0; i <= 3 && i <= kmax; ++i) fill(i);
+  if (eps > 0) {  // types I/II: the term-by-term form (S5)/(S6), measured tighter there
+    using detail::tpow;
+    using detail::tpow_times;
+    const S e(eps);
+    // L(X)_k = (t³/6 X''' + X − t²/2 X'' − t X')_k for X with derivative coefficients (X0..X3).
+    auto lin_s = [&](const std::vector<S>& X0, const std::vector<S>& X1, const std::vector<S>& X2,
+                     const std::vector<S>& X3, int k) {
+      return tpow_times(3, pw, X3, k) / S(6) + X0[k] - tpow_times(2, pw, X2, k) / S(2) - tpow_times(1, pw, X1, k);
+    };
+    for (int k = 0; k + 4 <= kmax; ++k) {
+      const S lin = e * (tpow_times(1, pw, D3, k) - D2[k]);
+      const S ls = lin_s(D0, D1, D2, D3, k);
+      S zz(0);  // (u u''' − u' u'')_k
+      for (int i = 0; i <= k; ++i) zz = zz + D0[i] * D3[k - i] - D1[i] * D2[k - i];
+      const S rhs = lin - s * tpow(3, pw, k) / S(3) + s * ls + s * zz;
+      const long denom = static_cast<long>(k + 1) * (k + 2) * (k + 3) * (k + 4);
+      Z[k + 4] = rhs / S(denom);
+      if (variational) {
+        const S vlin = e * (tpow_times(1, pw, E3, k) - E2[k]);
+        const S vls = lin_s(E0, E1, E2, E3, k);
+        S mix(0);  // (r u''' + u r''' − r' u'' − u' r'')_k
+        for (int i = 0; i <= k; ++i)
+          mix = mix + E0[i] * D3[k - i] + D0[i] * E3[k - i] - E1[i] * D2[k - i] - D1[i] * E2[k - i];
+        V[k + 4] = (vlin - s * tpow(3, pw, k) / S(3) + s * ls + s * vls + s * zz + s * mix) / S(denom);
+      }
+      fill(k + 4);
+    }
+    return;
+  }
+  // (S5) and (S6) are evaluated in the grouped form (S7'), exactly equal to them:
+  //     u'''' = g (1 + u''') − g' (t + u''),
+  //     r'''' = (g − ε t + s r)(1 + u''') + g r''' − (g' − ε + s r')(t + u'') − g' r'',
+  // with g = ε t + s t³/6 + s u, g' = ε + s t²/2 + s u'. On intervals the grouping keeps the
+  // cancellation inside g (its parts ε t, s t³/6 and s u are each much larger than g where the fast
+  // mode decays, ε = −1), so the coefficients grow like |g|^k/k!, not like (|t| + |s| t³/6 + |s u|)^k/k!.
   const S e(eps);
-  // L(X)_k = (t³/6 X''' + X − t²/2 X'' − t X')_k for X with derivative coefficients (X0..X3).
-  auto lin_s = [&](const std::vector<S>& X0, const std::vector<S>& X1, const std::vector<S>& X2,
-                   const std::vector<S>& X3, int k) {
-    return tpow_times(3, pw, X3, k) / S(6) + X0[k] - tpow_times(2, pw, X2, k) / S(2) - tpow_times(1, pw, X1, k);
+  // Taylor coefficients of ε t + s t³/6 about t0 (cubic in τ).
+  const std::array<S, 4> g0{t0 * (e + s * pw[2] / S(6)), e + s * pw[2] / S(2), s * t0 / S(2), s / S(6)};
+  std::vector<S> G(kmax + 1, S(0));  // coefficients of g, filled with Z
+  auto set_g = [&](int i) { G[i] = (i <= 3 ? g0[i] : S(0)) + s * Z[i]; };
+  for (int i = 0; i <= 3 && i <= kmax; ++i) set_g(i);
+  auto gp = [&](int i) { return G[i + 1] * S(i + 1); };                                  // coefficient of g'
+  auto p3 = [&](int i) { return i == 0 ? S(1) + D3[0] : D3[i]; };                        // 1 + u'''
+  auto p2 = [&](int i) { return i == 0 ? t0 + D2[0] : i == 1 ? S(1) + D2[1] : D2[i]; };  // t + u''
+  // g − ε t + s r and g' − ε + s r' (variational part).
+  auto h0 = [&](int i) {
+    const S a = G[i] + s * V[i];
+    return i == 0 ? a - e * t0 : i == 1 ? a - e : a;
+  };
+  auto h1 = [&](int i) {
+    const S a = gp(i) + s * V[i + 1] * S(i + 1);
+    return i == 0 ? a - e : a;
   };
   for (int k = 0; k + 4 <= kmax; ++k) {
-    const S lin = e * (tpow_times(1, pw, D3, k) - D2[k]);
-    const S ls = lin_s(D0, D1, D2, D3, k);
-    S zz(0);  // (u u''' − u' u'')_k
-    for (int i = 0; i <= k; ++i) zz = zz + D0[i] * D3[k - i] - D1[i] * D2[k - i];
-    const S rhs = lin - s * tpow(3, pw, k) / S(3) + s * ls + s * zz;
+    S rhs(0);
+    for (int i = 0; i <= k; ++i) rhs = rhs + G[i] * p3(k - i) - gp(i) * p2(k - i);
     const long denom = static_cast<long>(k + 1) * (k + 2) * (k + 3) * (k + 4);
     Z[k + 4] = rhs / S(denom);
     if (variational) {
-      const S vlin = e * (tpow_times(1, pw, E3, k) - E2[k]);
-      const S vls = lin_s(E0, E1, E2, E3, k);
-      S mix(0);  // (r u''' + u r''' − r' u'' − u' r'')_k
-      for (int i = 0; i <= k; ++i)
-        mix = mix + E0[i] * D3[k - i] + D0[i] * E3[k - i] - E1[i] * D2[k - i] - D1[i] * E2[k - i];
-      V[k + 4] = (vlin - s * tpow(3, pw, k) / S(3) + s * ls + s * vls + s * zz + s * mix) / S(denom);
+      S v(0);
+      for (int i = 0; i <= k; ++i) v = v + h0(i) * p3(k - i) + G[i] * E3[k - i] - h1(i) * p2(k - i) - gp(i) * E2[k - i];
+      V[k + 4] = v / S(denom);
     }
     fill(k + 4);
+    set_g(k + 4);
   }
 }
 

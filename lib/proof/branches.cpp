@@ -55,7 +55,15 @@ BranchesOutcome certify_branches(const CertifyRequest& req) {
         out.origins.push_back(f.origin);
       }
     } else {
-      out.region += "; type III (f'(0) < 0) not searched above R = " + std::to_string(static_cast<int>(kSearchUpToR));
+      // Type III by the reduced method in the chart eps = -1 (f'(0) < 0), the wall at the second zero
+      // of f' (the first is where the reversed core flow turns), kept as a Lohner QR set (S13)-(S15).
+      out.solutions.push_back(certify_reduced(req, -1, 2, reduced_guess(Rm, -1, 2, 1)));
+      out.origins.push_back("reduced shooting, f'(0) < 0, wall at the second zero of f'");
+      out.region +=
+          "; type III: reduced shape parameter s > 0 with f'(0) < 0 and the wall at the second zero of f', one "
+          "Newton start from a table of measured s (solutions with f'(0) < 0 elsewhere were not looked for above R "
+          "= " +
+          std::to_string(static_cast<int>(kSearchUpToR)) + ")";
     }
   } else {
     const auto search = req.model.is_berman() ? candidate::find_branches(Rm, req.max_modes)

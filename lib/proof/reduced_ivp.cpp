@@ -6,8 +6,10 @@
 #include <functional>
 #include <optional>
 
+#include "arith/fp_env.hpp"
 #include "candidate/reduced_shooting.hpp"
 #include "model/berman_reduced.hpp"
+#include "proof/lohner.hpp"
 
 namespace porecert::proof {
 
@@ -61,6 +63,14 @@ struct StepData {
   std::array<I, 8> E;               // order p+1 coefficient over the step (remainder)
   std::array<I, 8> B;               // state over [t0, t1]
   std::array<I, 8> y1;              // state at t1
+  // Lohner data (S14), when the run keeps a QR representation: the state at t0 is in x̂ + A r; cc
+  // the Taylor coefficients at x̂, Dc[(i N + j)(p + 1) + k] the gradient of coefficient k of
+  // component i over the hull of the set, N = components + 1 (s).
+  int N = 0;
+  std::array<std::vector<I>, 8> cc;
+  std::vector<I> Dc;
+  std::vector<double> A;
+  std::vector<I> r;
 };
 
 template <Interval I>
@@ -151,7 +161,25 @@ I eval_in_step(const StepData<I>& st, int j, int p, const I& tt) {
   I tau = tt - I(st.t0);
   const I lo = arith::make_unchecked<I>(arith::unchecked, arith::scalar_of<I>(0), st.H.upper());
   tau = boost::numeric::intersect(tau, lo);
-  return horner(st.c[j], p, tau) + tau_pow(tau, p + 1) * st.E[j];
+  const I plain = horner(st.c[j], p, tau) + tau_pow(tau, p + 1) * st.E[j];
+  if (st.N == 0) return plain;
+  // Mean-value form about the centre (S14) at τ: Ψ_τ(x̂) + τ^{p+1} E + (DΨ_τ A) r.
+  const int N = st.N;
+  I acc = horner(st.cc[j], p, tau) + tau_pow(tau, p + 1) * st.E[j];
+  std::vector<I> Jrow(N);
+  for (int q = 0; q < N; ++q) {
+    I a = st.Dc[(j * N + q) * (p + 1) + p];
+    for (int k = p - 1; k >= 0; --k) a = a * tau + st.Dc[(j * N + q) * (p + 1) + k];
+    Jrow[q] = a;
+  }
+  for (int m = 0; m < N; ++m) {
+    I jm(0);
+    for (int q = 0; q < N; ++q)
+      if (st.A[q * N + m] != 0.0) jm = jm + Jrow[q] * I(st.A[q * N + m]);
+    acc = acc + jm * st.r[m];
+  }
+  assert(boost::numeric::overlap(acc, plain));
+  return boost::numeric::intersect(acc, plain);
 }
 
 // State enclosure at every t in tt, from the steps of run range [a, b] that meet tt.
@@ -193,11 +221,80 @@ double rel_width(const I& x) {
   return m > 0 ? arith::width_up(x) / m : 0;
 }
 
+// Magnitude and width of an interval, as intervals (no double overflow for MPFR magnitudes).
+template <Interval I>
+I mag(const I& x) {
+  return I(boost::numeric::norm(x));
+}
+template <Interval I>
+I wid(const I& x) {
+  return I(x.upper()) - I(x.lower());
+}
+
 struct Settings {
+  bool lohner = false;  // QR representation between steps (S13)-(S15); used where the fast mode decays (ε = −1)
   int p = 24;
   double log_tol = std::log(1e-17);
   double t_max = 1000;
+  int max_steps = 10000;  // type III at R = 1000 takes 2070 steps, types I/II there 179
 };
+
+// The Lohner step (S14) for the extended state X = (y, s) (n = nc + 1; s' = 0): with Ψ(X) the Taylor
+// polynomial of the step at H, y(t1) ∈ Ψ(x̂) + H^{p+1} E + DΨ(hull) A r, DΨ by dual numbers over the
+// hull of the set (the segment from x̂ to every point of the set lies in it). Returns the new set;
+// the caller intersects its hull with the plain enclosure of the step.
+template <Interval I, int N>
+lohner::Set<I> lohner_step(const lohner::Set<I>& set, StepData<I>& st, int eps, bool var, int p) {
+  using D = lohner::Dual<I, N>;
+  const int nc = N - 1;
+  assert((var ? 8 : 4) == nc);
+  const std::vector<I> Yh = lohner::hull(set);
+  // Point coefficients at the centre.
+  model::ReducedState<I> yc{};
+  for (int j = 0; j < 8; ++j) yc[j] = j < nc ? set.x[j] : I(0);
+  std::array<std::vector<I>, 8> cc;
+  coefficients(yc, I(st.t0), set.x[nc], eps, var, p, cc);
+  // Dual coefficients over the hull.
+  model::ReducedState<D> yd{};
+  for (int j = 0; j < 8; ++j) yd[j] = j < nc ? D::variable(Yh[j], j) : D(0);
+  const D sd = D::variable(Yh[nc], nc);
+  std::vector<D> Z, V;
+  model::reduced_taylor<D>(yd, D(I(st.t0)), sd, eps, var, p + 4, Z, V);
+  std::vector<I> v(N), M(N * N, I(0));
+  std::vector<I> J(N * N, I(0));
+  st.N = N;
+  st.cc = cc;
+  st.A = set.A;
+  st.r = set.r;
+  st.Dc.assign(N * N * (p + 1), I(0));
+  for (int i = 0; i < nc; ++i) {
+    I acc = cc[i][p];
+    for (int k = p - 1; k >= 0; --k) acc = acc * st.H + cc[i][k];
+    v[i] = acc + tau_pow(st.H, p + 1) * st.E[i];
+    for (int j = 0; j < N; ++j) {
+      auto coef = [&](int k) {
+        const D& c = i < 4 ? Z[k + i] : V[k + i - 4];
+        long f = 1;
+        for (int q = 1; q <= (i < 4 ? i : i - 4); ++q) f *= (k + q);
+        return c.grad(j) * I(f);
+      };
+      for (int k = 0; k <= p; ++k) st.Dc[(i * N + j) * (p + 1) + k] = coef(k);
+      I a = coef(p);
+      for (int k = p - 1; k >= 0; --k) a = a * st.H + coef(k);
+      J[i * N + j] = a;
+    }
+  }
+  v[nc] = set.x[nc];
+  J[nc * N + nc] = I(1);
+  for (int i = 0; i < N; ++i)
+    for (int k = 0; k < N; ++k) {
+      I acc(0);
+      for (int j = 0; j < N; ++j)
+        if (set.A[j * N + k] != 0.0) acc = acc + J[i * N + j] * I(set.A[j * N + k]);
+      M[i * N + k] = acc;
+    }
+  return lohner::update<I>(v, M, set.r);
+}
 
 // Validated integration of (S5)(S6) from t = 0 with s in s, counting the zeros of g' = ε + s t²/2 + s u'
 // (S8) until the nth; every zero is certified simple (g'' of one sign on its run of steps).
@@ -212,9 +309,18 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
   int sign_before = eps, run_first = -1, run_g2 = 0;
   bool in_run = false;
   std::array<std::vector<I>, 8> c0;
+  lohner::Set<I> set;
+  if (cfg.lohner) {
+    std::vector<I> x0(nc + 1, I(0));
+    x0[nc] = s;
+    set = lohner::from_box<I>(x0);
+  }
   while (t < cfg.t_max) {
-    if (run.steps.size() > 400000) {
-      run.failure = "more than 400000 Taylor steps";
+    if (run.steps.size() >= static_cast<std::size_t>(cfg.max_steps)) {
+      // A budget, not a claim: where g' keeps away from 0 and the fast mode is stiff (|g| large,
+      // steps of about 1/|g|) the run would crawl on; failing is always sound (docs/method.md (S9)).
+      run.failure = "more than " + std::to_string(cfg.max_steps) + " Taylor steps (reached t = " + std::to_string(t) +
+                    ", last step " + std::to_string(run.steps.back().t1 - run.steps.back().t0) + ")";
       return run;
     }
     coefficients(y, I(t), s, eps, var, p, c0);
@@ -237,8 +343,15 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
       // Keep the validated remainder H^{p+1}|E| near the truncation tolerance: the a-priori box
       // overestimates c_{p+1}, so the heuristic step alone can leave a wide remainder.
       {
-        const double lr = (p + 1) * std::log(arith::upper_up(st.H)) + log_mag(st.E[0]);
-        const double excess = lr - (cfg.log_tol + lm);
+        const double lh = (p + 1) * std::log(arith::upper_up(st.H));
+        double excess = lh + log_mag(st.E[0]) - (cfg.log_tol + lm);
+        // With the QR representation the widths no longer wrap, so the remainders of u', u'', u'''
+        // (larger than that of u by about (rate/H)^j) decide the width: keep each near its tolerance.
+        for (int j = 1; cfg.lohner && j < 4; ++j) {
+          double lmj = -1e300;
+          for (int k = 0; k <= 8; ++k) lmj = std::max(lmj, log_mag(c0[j][k]));
+          excess = std::max(excess, lh + log_mag(st.E[j]) - (cfg.log_tol + lmj));
+        }
         if (excess > std::log(16.0) && attempt < 16) {
           h = 2 * h * std::max(0.05, std::exp(-excess / (p + 1)));  // the loop halves it again
           continue;
@@ -251,6 +364,19 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
         continue;  // zero not isolated yet
       }
       done = true;
+      if (cfg.lohner) {
+        try {
+          set = var ? lohner_step<I, 9>(set, st, eps, var, p) : lohner_step<I, 5>(set, st, eps, var, p);
+        } catch (const std::runtime_error& e) {
+          run.failure = "QR (Lohner) step at t = " + std::to_string(t) + " failed: " + e.what();
+          return run;
+        }
+        const std::vector<I> Y = lohner::hull(set);
+        for (int j = 0; j < nc; ++j) {
+          assert(boost::numeric::overlap(Y[j], st.y1[j]) && "Lohner and plain enclosures of one state are disjoint");
+          st.y1[j] = boost::numeric::intersect(Y[j], st.y1[j]);
+        }
+      }
       const int idx = static_cast<int>(run.steps.size());
       run.steps.push_back(st);
       if (!in_run && g1b == 0) {
@@ -285,16 +411,6 @@ Run<I> integrate(const I& s, int eps, int nth, bool var, const Settings& cfg) {
   run.failure =
       "g' has fewer than " + std::to_string(nth) + " certified zeros on [0, " + std::to_string(cfg.t_max) + "]";
   return run;
-}
-
-// Magnitude and width of an interval, as intervals (no double overflow for MPFR magnitudes).
-template <Interval I>
-I mag(const I& x) {
-  return I(boost::numeric::norm(x));
-}
-template <Interval I>
-I wid(const I& x) {
-  return I(x.upper()) - I(x.lower());
 }
 
 // Boxes of g, g', g'', g''', g'''' over a step (S4), g'''' = g g''' − g' g'' from (S1).
@@ -376,6 +492,37 @@ std::string dec_hi(const I& x) {
   return arith::decimal_upper(x);
 }
 
+// R(s) = σ g(σ) (S3) at the nth zero σ of g' for every s in s (thin in use), and σ itself: the
+// validated run (S9) (with the QR set (S13)-(S15) when cfg.lohner), σ isolated by bisection (S8),
+// R by the mean-value form about the midpoint of Σ intersected with the direct product. Returns ""
+// or the failure of the run; the enclosures are set only on success.
+template <Interval I>
+std::string R_at(const I& s, int eps, int nth, const Settings& cfg, I* out_R, I* out_sig) {
+  const Run<I> run = integrate(s, eps, nth, false, cfg);
+  if (!run.ok) return run.failure;
+  const I sig = isolate_zero(run, nth - 1, s, eps, cfg.p);
+  const auto [a, b] = run.zero_runs[nth - 1];
+  const auto st = eval_at(run, a, b, 4, cfg.p, sig);
+  // d/dσ σ g = g + σ g'; the direct form adds the widths of the parts of g over Σ.
+  const I sm(boost::numeric::median(sig));
+  const auto ym = eval_at(run, a, b, 4, cfg.p, sm);
+  const I slope = model::reduced_g(0, sig, s, eps, st[0]) + sig * model::reduced_g(1, sig, s, eps, st[1]);
+  *out_R = boost::numeric::intersect(sig * model::reduced_g(0, sig, s, eps, st[0]),
+                                     sm * model::reduced_g(0, sm, s, eps, ym[0]) + slope * (sig - sm));
+  *out_sig = sig;
+  return "";
+}
+
+Settings settings_for(int eps, int bits) {
+  Settings cfg;
+  if (bits > 53) {
+    cfg.p = std::max(24, bits / 3);
+    cfg.log_tol = std::min(std::log(1e-17), -0.75 * bits * std::log(2.0));
+  }
+  cfg.lohner = eps < 0;  // the fast mode decays: plain intervals wrap (S13)
+  return cfg;
+}
+
 struct Proved {
   ReducedResult r;
   Part part = Part::none;
@@ -393,11 +540,7 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
   r.s_hi = sb;
   r.S_lo = SA;
   r.S_hi = SB;
-  Settings cfg;
-  if constexpr (std::is_same_v<I, Im>) {
-    cfg.p = std::max(24, bits / 3);
-    cfg.log_tol = std::min(std::log(1e-17), -0.75 * bits * std::log(2.0));
-  }
+  const Settings cfg = settings_for(eps, std::is_same_v<I, Im> ? bits : 53);
   r.order = cfg.p;
   const I R = read_interval<I>(R_lo, R_hi);
   const I s_a = arith::from_decimal<I>(sa), s_b = arith::from_decimal<I>(sb);
@@ -418,13 +561,8 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
 
   // 1. R at the bracket ends (thin s).
   auto R_of = [&](const I& s, I* out_R) -> std::string {
-    const Run<I> run = integrate(s, eps, nth, false, cfg);
-    if (!run.ok) return run.failure;
-    const I sig = isolate_zero(run, nth - 1, s, eps, cfg.p);
-    const auto [a, b] = run.zero_runs[nth - 1];
-    const auto st = eval_at(run, a, b, 4, cfg.p, sig);
-    *out_R = sig * model::reduced_g(0, sig, s, eps, st[0]);
-    return "";
+    I sig;
+    return R_at<I>(s, eps, nth, cfg, out_R, &sig);
   };
   I Ra, Rb;
   if (auto e = R_of(s_a, &Ra); !e.empty()) return fail(Part::integration, "at s_lo: " + e);
@@ -679,9 +817,44 @@ ReducedResult reduced_prove(const std::string& R_lo, const std::string& R_hi, in
   return prove_any(R_lo, R_hi, eps, nth, s_lo, s_hi, S_lo, S_hi, precision_bits).r;
 }
 
+ReducedShotEnclosure reduced_R_of_s(const std::string& s, int eps, int nth, int precision_bits) {
+  const arith::FpEnvScope fp_env;
+  ReducedShotEnclosure out;
+  auto run = [&]<Interval I>(I) {
+    const Settings cfg = settings_for(eps, std::is_same_v<I, Im> ? precision_bits : 53);
+    I R, sig;
+    out.failure = R_at<I>(arith::from_decimal<I>(s), eps, nth, cfg, &R, &sig);
+    out.ok = out.failure.empty();
+    if (out.ok) {
+      out.R = arith::to_id(R);
+      out.sigma = arith::to_id(sig);
+    }
+  };
+  if (precision_bits <= 53) {
+    run(Id(0));
+  } else {
+    arith::PrecisionScope scope(precision_bits);
+    run(Im(0));
+  }
+  return out;
+}
+
 long double reduced_guess(double R, int eps, int nth, int sign_s) {
   if (R < 0) return std::acos(-1.0L) / (2.0L * std::fabs(R));    // injection, f → sin(πη/2)
   if (nth == 1) return sign_s * std::exp(-std::fabs(R) / 4.4L);  // types I (s < 0) and II (s > 0), R large
+  if (eps < 0 && nth == 2) {
+    // Type III (f'(0) < 0, wall at the second zero of f'): log-log interpolation in our own measured
+    // candidates (reduced shooting, not a source); beyond the table the end slopes. Only a start for
+    // Newton: the proof checks whatever it converges to.
+    static constexpr double kR[] = {20, 100, 200, 400, 1000};
+    static constexpr double kS[] = {0.185, 0.0226, 0.00733, 0.00215, 0.000403};
+    const int n = 5;
+    int k = 0;
+    while (k + 2 < n && R > kR[k + 1]) ++k;
+    const double x = std::log(std::max(R, 1.0)), x0 = std::log(kR[k]), x1 = std::log(kR[k + 1]);
+    const double y0 = std::log(kS[k]), y1 = std::log(kS[k + 1]);
+    return std::exp(static_cast<long double>(y0 + (x - x0) * (y1 - y0) / (x1 - x0)));
+  }
   return 0.05L;
 }
 
@@ -705,6 +878,12 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
   // A box's bracket reaches a hundredth of its width past each end, so that a neighbouring proof's
   // solution at the shared R falls inside S with room to spare (docs/sweep.md (S3'')).
   if (R1 > R0) margin = std::max(margin, (R1 - R0) / 100);
+  if (eps < 0 && Rint.lower() > 0) {
+    // Type III: the enclosure of R(s̄) is far wider than the default margin (2e-7 at R = 1000), so
+    // start the bracket outside it instead of widening it attempt by attempt.
+    const auto e = reduced_R_of_s(exact_string(*sbar, bits), eps, nth, bits);
+    if (e.ok) margin = std::max(margin, static_cast<long double>(2 * arith::width_up(e.R)));
+  }
   std::vector<std::string> log;
   log.push_back("candidate: reduced shooting, eps = " + std::to_string(eps) + ", zero " + std::to_string(nth) +
                 ", s = " + exact_string(*sbar, 53));
@@ -721,7 +900,9 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
     fail.log = log;
     return fail;
   }
-  long double rho = std::max(std::fabs(*sbar) / 32, 2 * (*sb - *sa));  // S about s̄: uniqueness set
+  // S about s̄: uniqueness set. Type III: the variational run over a wide S loses the QR set (its
+  // Jacobian over the hull grows without bound), so start S at twice the bracket.
+  long double rho = eps < 0 && Rint.lower() > 0 ? 2 * (*sb - *sa) : std::max(std::fabs(*sbar) / 32, 2 * (*sb - *sa));
   for (int attempt = 0; attempt < 12; ++attempt) {
     const long double lo = std::min(*sa, *sbar), hi = std::max(*sb, *sbar);
     const long double SA = std::min(lo, *sbar - rho), SB = std::max(hi, *sbar + rho);

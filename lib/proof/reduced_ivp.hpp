@@ -20,11 +20,11 @@ inline constexpr int kProfileSamples = 128;
 
 struct ReducedResult {
   bool certified = false;
-  std::string failure;            // the inequality or check that failed, and by how much
-  std::vector<std::string> log;   // attempts, in order
-  int eps = 1, nth = 1;           // branch data
-  int precision_bits = 53;        // 53: double intervals; else MPFR bits
-  int order = 0, steps = 0;       // Taylor order and steps of the value run
+  std::string failure;           // the inequality or check that failed, and by how much
+  std::vector<std::string> log;  // attempts, in order
+  int eps = 1, nth = 1;          // branch data
+  int precision_bits = 53;       // 53: double intervals; else MPFR bits
+  int order = 0, steps = 0;      // Taylor order and steps of the value run
   // Exact endpoints (hex strings, read back with from_decimal): existence bracket and uniqueness set.
   std::string s_lo, s_hi, S_lo, S_hi;
   // Enclosures of R(s_lo), R(s_hi) and of dR/ds over S (outward doubles).
@@ -53,8 +53,20 @@ ReducedResult reduced_prove(const std::string& R_lo, const std::string& R_hi, in
 ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, int eps, int nth, long double s_guess,
                               int precision_bits = 0);
 
+// Enclosures of σ, the nth zero of g' on (0, t_max], and of R(s) = σ g(σ) (S3) for the exact s
+// (decimal or hex string), from the same validated run as the proof (with the QR set (S13)-(S15)
+// for eps = −1). Loose where the run is long (widths grow with the step count); ok = false with the
+// failed check when the run cannot certify the zero (no claim then). Exposed for tests.
+struct ReducedShotEnclosure {
+  bool ok = false;
+  std::string failure;
+  arith::Id sigma, R;
+};
+ReducedShotEnclosure reduced_R_of_s(const std::string& s, int eps, int nth, int precision_bits = 53);
+
 // A starting shape parameter for the branch (eps, nth) at R from the asymptotics (docs/method.md §S):
-// type I / II: s ≈ ∓exp(−R/4.4…); injection: s ≈ −π/(2R); type III from a rough table.
+// type I / II: s ≈ ∓exp(−R/4.4…); injection: s ≈ −π/(2R); type III (eps = −1, nth = 2, R > 0) by
+// log-log interpolation in a table of measured candidates (R = 20 … 1000).
 long double reduced_guess(double R, int eps, int nth, int sign_s);
 
 }  // namespace porecert::proof
