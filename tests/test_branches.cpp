@@ -34,6 +34,8 @@ TEST_CASE("R = 20: three certified, pairwise distinct solutions labelled I, II, 
   // Flow reversal: none on type I (certified f' > 0), certified on type III (f'(0) < 0).
   CHECK(s1->structure.reversal == arith::Tri::no);
   CHECK(s3->structure.reversal == arith::Tri::yes);
+  // Type II: f' > 0 on [0, eta1] and f'' < 0 on [eta1, 1] certified, so no reversal either.
+  CHECK(s2->structure.reversal == arith::Tri::no);
   // Independent reference (Odeint + Multiprecision shooting, shares no code with the verifier).
   const auto r1 = berman_type1_reference("20");
   CHECK(meets(r1.fp0, s1->fp0));

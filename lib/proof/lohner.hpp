@@ -165,14 +165,19 @@ Set<I> update(const std::vector<I>& v, const std::vector<I>& M, const std::vecto
   for (int i = 0; i < n; ++i)
     for (int j = 0; j < n; ++j) {
       B(i, j) = arith::mid_double(M[i * n + j]);
-      len[j] += B(i, j) * B(i, j);
+      len[j] = std::max(len[j], std::fabs(B(i, j)));  // max norm: no overflow in the ordering either
     }
-  for (int j = 0; j < n; ++j) len[j] = std::sqrt(len[j]) * arith::width_up(r[j]);
+  for (int j = 0; j < n; ++j) len[j] *= arith::width_up(r[j]);
   std::vector<int> perm(n);
   std::iota(perm.begin(), perm.end(), 0);
   std::stable_sort(perm.begin(), perm.end(), [&](int a, int b) { return len[a] > len[b]; });
+  // Columns scaled to unit size before the QR: the spans (hence Q) do not change, and huge
+  // entries (fast modes over a wide s) no longer overflow the Householder norms.
   Eigen::MatrixXd BP(n, n);
-  for (int j = 0; j < n; ++j) BP.col(j) = B.col(perm[j]);
+  for (int j = 0; j < n; ++j) {
+    const double c = B.col(perm[j]).cwiseAbs().maxCoeff();
+    BP.col(j) = c > 0 && std::isfinite(c) ? Eigen::VectorXd(B.col(perm[j]) / c) : Eigen::VectorXd(B.col(perm[j]));
+  }
   // A column of zeros (a direction the box does not occupy) still gets a basis vector from QR.
   const Eigen::HouseholderQR<Eigen::MatrixXd> qr(BP);
   const Eigen::MatrixXd Q = qr.householderQ();

@@ -124,9 +124,13 @@ Structure classify(const std::vector<std::array<cheb::Series<Id>, 4>>& vertices,
   const bool type1 = eta1 < 1.0 && (eta1 == 0.0 || covers(c3.negative, 0.0, eta1));
   // Then f' > 0 on [0,1) follows from f'(1) >= 0, which the true solution meets exactly: f'(1) = 0,
   // or f'(1) = -beta f''(1) > 0 with slip beta > 0 (f''(1) < 0 here).
+  // Any label: f' > 0 certified on [0, eta1] and f'' < 0 on [eta1, 1] give f' > f'(1) >= 0 on
+  // [eta1, 1) as well, so no reversal (type II: the velocity peak off the centre plane, then a
+  // monotone fall to the wall).
+  const bool fp_positive = eta1 < 1.0 && covers(c1.positive, 0.0, eta1);
   if (!c1.negative.empty()) {
     st.reversal = arith::Tri::yes;
-  } else if (type1) {
+  } else if (type1 || fp_positive) {
     st.reversal = arith::Tri::no;
   }
   char buf[320];
