@@ -84,21 +84,22 @@ json identity(const Params& p) {
   return id;
 }
 
-// Width of the initial boxes for --width auto (docs/sweep.md S2): 1 where Berman's type I boxes
-// go to the reduced method (R >= 1, one proof per unit box up to R of a few hundred), 0.25 for the
-// Newton-Kantorovich boxes with the moving centre (every other case).
+// Width of the initial boxes for --width auto (docs/sweep.md S2): 1 where Berman's boxes go to the
+// reduced method (type I from R = 1, type II from R = 40: one proof per unit box up to R of a few
+// hundred), 0.25 for the Newton-Kantorovich boxes with the moving centre (every other case).
 static std::vector<std::pair<std::string, std::string>> auto_segments(const Params& p, std::vector<std::string>* w) {
   std::vector<std::pair<std::string, std::string>> seg;
-  const bool reduced = p.model.is_berman() && p.branch == "I";
+  const bool reduced = p.model.is_berman() && (p.branch == "I" || p.branch == "II");
+  const std::string from = p.branch == "I" ? "1" : "40";
   const auto less = [](const std::string& a, const std::string& b) {
     return arith::tri_less(arith::from_decimal<arith::Id>(a), arith::from_decimal<arith::Id>(b)) == arith::Tri::yes;
   };
-  if (reduced && less(p.R_lo, "1") && less("1", p.R_hi)) {
-    seg = {{p.R_lo, "1"}, {"1", p.R_hi}};
+  if (reduced && less(p.R_lo, from) && less(from, p.R_hi)) {
+    seg = {{p.R_lo, from}, {from, p.R_hi}};
     *w = {"0.25", "1"};
   } else {
     seg = {{p.R_lo, p.R_hi}};
-    *w = {reduced && !less(p.R_lo, "1") ? "1" : "0.25"};
+    *w = {reduced && !less(p.R_lo, from) ? "1" : "0.25"};
   }
   return seg;
 }

@@ -1,11 +1,35 @@
 #include "proof/labelled.hpp"
 
 #include "proof/branches.hpp"
+#include "proof/reduced_ivp.hpp"
 
 namespace porecert::proof {
 
 CertifyOutcome certify_labelled(const CertifyRequest& req) {
   if (req.method == "reduced" || (req.branch != "II" && req.branch != "III")) return certify_berman(req);
+  // Where certify_branches takes type II (R >= kReducedFromR) or type III (R > kSearchUpToR) from the
+  // reduced method, prove that chart alone: the same proof, without the other branches and the
+  // Chebyshev search (a sweep box of type II at R = 40 cost 15 s with them; docs/sweep.md S2).
+  if (req.model.is_berman() && !req.start) {
+    const arith::Id R =
+        boost::numeric::hull(arith::from_decimal<arith::Id>(req.R_lo), arith::from_decimal<arith::Id>(req.R_hi));
+    const double Rm = arith::mid_double(R);
+    std::optional<CertifyOutcome> direct;
+    if (req.branch == "II" && R.lower() >= kReducedFromR)
+      direct = certify_reduced(req, 1, 1, reduced_guess(Rm, 1, 1, 1));
+    else if (req.branch == "III" && R.lower() > kSearchUpToR)
+      direct = certify_reduced(req, -1, 2, reduced_guess(Rm, -1, 2, 1));
+    if (direct && direct->certified && direct->structure.label == req.branch) return *direct;
+    // Above kSearchUpToR certify_branches would run the same reduced proof again: say why it failed.
+    if (direct && R.lower() > kSearchUpToR) {
+      if (direct->certified) {
+        direct->certified = false;
+        direct->failure = "the reduced proof holds but its certified structure is '" + direct->structure.label +
+                          "', not type " + req.branch;
+      }
+      return *direct;
+    }
+  }
   const auto all = certify_branches(req);
   for (const auto& s : all.solutions)
     if (s.certified && s.structure.label == req.branch) return s;
