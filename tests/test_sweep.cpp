@@ -116,6 +116,20 @@ TEST_CASE("sweep across R = 1: Chebyshev box and reduced box glued (S3'')") {
   CHECK(d["one_branch"] == true);
 }
 
+TEST_CASE("type II from R = 40: unit boxes in the reduced chart, labelled II, s > 0 on every box") {
+  fs::create_directories(dir);
+  const auto r = run(std::string(PORECERT_BINARY) + " sweep --R=40:41 --branch II --json " + dir + "/ii.json");
+  CHECK(r.rc == 0);
+  const json d = json::parse(slurp(dir + "/ii.json"));
+  CHECK(d["covered"] == true);
+  REQUIRE(d["boxes"].size() == 1);  // --width auto: one unit box
+  const json& c = d["boxes"][0]["certificate"];
+  CHECK(c["method"] == "reduced-ivp");
+  CHECK(c["structure"]["label"] == "II");
+  // Type II is the s > 0 side of the reduced chart (docs/method.md (S10)): f'''(0) > 0.
+  CHECK(std::stod(d["boxes"][0]["values"]["f'''(0)"][0].get<std::string>()) > 0);
+}
+
 TEST_CASE("journal: header check, truncated last line discarded, damaged middle line refused") {
   fs::create_directories(dir);
   const std::string path = dir + "/unit.journal";
