@@ -17,17 +17,28 @@ const proof::CertifyOutcome* with_label(const proof::BranchesOutcome& b, const s
     if (s.certified && s.structure.label == l) return &s;
   return nullptr;
 }
+// certify_branches at R with exactly three certified, pairwise disjoint solutions labelled I, II, III.
+struct Three {
+  proof::BranchesOutcome b;
+  const proof::CertifyOutcome *s1 = nullptr, *s2 = nullptr, *s3 = nullptr;
+};
+Three three_at(const std::string& R) {
+  Three t;
+  proof::CertifyRequest q;
+  q.R_lo = q.R_hi = R;
+  t.b = proof::certify_branches(q);
+  CHECK(t.b.solutions.size() == 3);
+  CHECK(t.b.pairwise_disjoint);
+  t.s1 = with_label(t.b, "I");
+  t.s2 = with_label(t.b, "II");
+  t.s3 = with_label(t.b, "III");
+  return t;
+}
 }  // namespace
 
 TEST_CASE("R = 20: three certified, pairwise distinct solutions labelled I, II, III") {
-  proof::CertifyRequest q;
-  q.R_lo = q.R_hi = "20";
-  const auto b = proof::certify_branches(q);
-  REQUIRE(b.solutions.size() == 3);
-  CHECK(b.pairwise_disjoint);
-  const auto* s1 = with_label(b, "I");
-  const auto* s2 = with_label(b, "II");
-  const auto* s3 = with_label(b, "III");
+  const Three t = three_at("20");
+  const auto *s1 = t.s1, *s2 = t.s2, *s3 = t.s3;
   REQUIRE(s1);
   REQUIRE(s2);
   REQUIRE(s3);
@@ -61,14 +72,9 @@ TEST_CASE("below the fold (R = 11; fold near 12.165, Robinson 1976 from memory) 
 TEST_CASE("R = 100: types I, II by the reduced method and type III by its eps = -1 chart, disjoint") {
   // Above the Chebyshev search (kSearchUpToR) all three come from the reduced method (docs/method.md
   // §S, (S13)-(S15) for type III); the labels are certified structure, the disjointness from enclosures.
-  proof::CertifyRequest q;
-  q.R_lo = q.R_hi = "100";
-  const auto b = proof::certify_branches(q);
-  REQUIRE(b.solutions.size() == 3);
-  CHECK(b.pairwise_disjoint);
-  const auto* s1 = with_label(b, "I");
-  const auto* s2 = with_label(b, "II");
-  const auto* s3 = with_label(b, "III");
+  const Three t = three_at("100");
+  const auto& b = t.b;
+  const auto *s1 = t.s1, *s2 = t.s2, *s3 = t.s3;
   REQUIRE(s1);
   REQUIRE(s2);
   REQUIRE(s3);
