@@ -85,21 +85,27 @@ json identity(const Params& p) {
 }
 
 // Width of the initial boxes for --width auto (docs/sweep.md S2): 1 where Berman's boxes go to the
-// reduced method (type I from R = 1, type II from R = 40: one proof per unit box up to R of a few
-// hundred), 0.25 for the Newton-Kantorovich boxes with the moving centre (every other case).
+// reduced method (type I from R = 1, type II from R = 40) up to R = 500, 0.25 beyond (unit boxes
+// failed near R = 1000) and for the Newton-Kantorovich boxes with the moving centre (every other
+// case). The range is cut at each change of width that lies inside it.
 static std::vector<std::pair<std::string, std::string>> auto_segments(const Params& p, std::vector<std::string>* w) {
-  std::vector<std::pair<std::string, std::string>> seg;
   const bool reduced = p.model.is_berman() && (p.branch == "I" || p.branch == "II");
-  const std::string from = p.branch == "I" ? "1" : "40";
-  const auto less = [](const std::string& a, const std::string& b) {
-    return arith::tri_less(arith::from_decimal<arith::Id>(a), arith::from_decimal<arith::Id>(b)) == arith::Tri::yes;
+  // (start of a zone, its width), zones in increasing R; the first starts at -infinity.
+  std::vector<std::pair<std::string, std::string>> zones{{"", "0.25"}};
+  if (reduced) zones.insert(zones.end(), {{p.branch == "I" ? "1" : "40", "1"}, {"500", "0.25"}});
+  const auto less = [](const std::string& x, const std::string& y) {
+    return arith::tri_less(arith::from_decimal<arith::Id>(x), arith::from_decimal<arith::Id>(y)) == arith::Tri::yes;
   };
-  if (reduced && less(p.R_lo, from) && less(from, p.R_hi)) {
-    seg = {{p.R_lo, from}, {from, p.R_hi}};
-    *w = {"0.25", "1"};
-  } else {
-    seg = {{p.R_lo, p.R_hi}};
-    *w = {reduced && !less(p.R_lo, from) ? "1" : "0.25"};
+  std::vector<std::pair<std::string, std::string>> seg;
+  std::string at = p.R_lo;
+  for (std::size_t z = 0; z < zones.size(); ++z) {
+    if (z + 1 < zones.size() && !less(p.R_lo, zones[z + 1].first)) continue;  // R_lo lies in a later zone
+    const bool next_inside = z + 1 < zones.size() && less(zones[z + 1].first, p.R_hi);
+    const std::string end = next_inside ? zones[z + 1].first : p.R_hi;
+    seg.push_back({at, end});
+    w->push_back(zones[z].second);
+    at = end;
+    if (!next_inside) break;
   }
   return seg;
 }
