@@ -58,6 +58,22 @@ json prove_box(const Params& p, const std::string& lo, const std::string& hi) {
   return r;
 }
 
+// The centre of a Newton-Kantorovich box's proof (S3): x̄ + (R − R0) x1 with a moving centre, x̄
+// otherwise; and its radius k ("existence_radius", "uniqueness_radius") about that centre.
+proof::sweep::Centre centre(const json& b) {
+  const json& c = b["certificate"]["candidate"];
+  proof::sweep::Centre x{c["coefficients_hex"].get<std::vector<std::string>>(), {}, ""};
+  if (b["certificate"].contains("moving_centre")) {
+    x.tangent = c["tangent_hex"].get<std::vector<std::string>>();
+    x.R0 = b["certificate"]["moving_centre"]["R0_hex"].get<std::string>();
+  }
+  return x;
+}
+std::string radius(const json& b, const char* k) {
+  const json& c = b["certificate"];
+  return c.contains("moving_centre") ? c["moving_centre"][k].get<std::string>() : b[k].get<std::string>();
+}
+
 }  // namespace
 
 // The header fields of every sweep (plain Berman sweeps have exactly these).
@@ -343,15 +359,9 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
         const json& nk = method(boxes[i]) == "reduced-ivp" ? boxes[i + 1] : boxes[i];
         const json& rd = method(boxes[i]) == "reduced-ivp" ? boxes[i] : boxes[i + 1];
         const json& c = nk["certificate"];
-        proof::sweep::Centre x{c["candidate"]["coefficients_hex"].get<std::vector<std::string>>(), {}, ""};
-        std::string r = nk["existence_radius"].get<std::string>();
-        if (c.contains("moving_centre")) {
-          x.tangent = c["candidate"]["tangent_hex"].get<std::vector<std::string>>();
-          x.R0 = c["moving_centre"]["R0_hex"].get<std::string>();
-          r = c["moving_centre"]["existence_radius"].get<std::string>();
-        }
         const std::string Rj = boxes[i]["R"][1].get<std::string>();
-        const auto p = proof::sweep::berman_chart_point(x, arith::from_decimal<arith::Id>(r).upper(), Rj);
+        const auto p = proof::sweep::berman_chart_point(
+            centre(nk), arith::from_decimal<arith::Id>(radius(nk, "existence_radius")).upper(), Rj);
         const json& rc = rd["certificate"]["candidate"];
         const bool fp_pos = c.contains("structure") && c["structure"].value("flow_reversal", "") == "no";
         g = p_model_berman && proof::sweep::glued_mixed(p, fp_pos, rc.value("eps", 0), rc.value("nth_zero", 0),
@@ -370,19 +380,6 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
     } else if (ci && cj) {
       // Distance of the proofs' centres at the shared R (S3): x̄ + (R − R0) x1 for a moving centre,
       // with the radii about it; the fixed-centre radii otherwise.
-      const auto centre = [](const json& b) {
-        const json& c = b["certificate"]["candidate"];
-        proof::sweep::Centre x{c["coefficients_hex"].get<std::vector<std::string>>(), {}, ""};
-        if (b["certificate"].contains("moving_centre")) {
-          x.tangent = c["tangent_hex"].get<std::vector<std::string>>();
-          x.R0 = b["certificate"]["moving_centre"]["R0_hex"].get<std::string>();
-        }
-        return x;
-      };
-      const auto radius = [](const json& b, const char* k) {
-        const json& c = b["certificate"];
-        return c.contains("moving_centre") ? c["moving_centre"][k].get<std::string>() : b[k].get<std::string>();
-      };
       const double d =
           proof::sweep::centre_distance_up(centre(boxes[i]), centre(boxes[i + 1]), boxes[i]["R"][1].get<std::string>());
       const arith::Tri g =
