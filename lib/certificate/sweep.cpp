@@ -127,10 +127,12 @@ static std::vector<std::pair<std::string, std::string>> auto_segments(const Para
 }
 
 Plan make_plan(const Params& p) {
-  std::vector<std::string> widths;
-  const auto seg = p.width == "auto" ? auto_segments(p, &widths)
-                                     : std::vector<std::pair<std::string, std::string>>{{p.R_lo, p.R_hi}};
-  if (p.width != "auto") widths = {p.width};
+  std::vector<std::string> widths{p.width};
+  std::vector<std::pair<std::string, std::string>> seg{{p.R_lo, p.R_hi}};
+  if (p.width == "auto") {
+    widths.clear();
+    seg = auto_segments(p, &widths);
+  }
   Plan plan;
   for (std::size_t k = 0; k < seg.size(); ++k) {
     const double total = proof::sweep::approx_width(seg[k].first, seg[k].second);

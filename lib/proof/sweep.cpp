@@ -23,6 +23,18 @@ std::string fixed(double v, int decimals) {
   if (s == "-0") s = "0";
   return s;
 }
+// Component i of the centre c at Rc: x̄_i + (Rc − R0) x1_i, or x̄_i without a tangent (exact data,
+// zero past the end); at the caller's MPFR precision.
+Im centre_component(const Centre& c, const Im& Rc, std::size_t i) {
+  if (i >= c.coefficients.size()) return Im(0);
+  Im x = arith::from_decimal<Im>(c.coefficients[i]);
+  if (!c.tangent.empty()) {
+    if (c.tangent.size() != c.coefficients.size())
+      throw std::invalid_argument("tangent and candidate differ in length");
+    x = x + (Rc - arith::from_decimal<Im>(c.R0)) * arith::from_decimal<Im>(c.tangent[i]);
+  }
+  return x;
+}
 // Certainly a < b as real numbers (both decimal strings).
 bool certainly_less(const std::string& a, const std::string& b) {
   return arith::tri_less(arith::from_decimal<Id>(a), arith::from_decimal<Id>(b)) == arith::Tri::yes;
@@ -75,20 +87,10 @@ double candidate_distance_up(const std::vector<std::string>& a, const std::vecto
 double centre_distance_up(const Centre& a, const Centre& b, const std::string& R_joint) {
   arith::PrecisionScope scope(2200);
   const Im Rc = arith::from_decimal<Im>(R_joint);
-  // x̄ + (Rc − R0) x1, component i, as an enclosure (exact data, decimal Rc enclosed).
-  const auto comp = [&](const Centre& c, std::size_t i) {
-    if (i >= c.coefficients.size()) return Im(0);
-    Im x = arith::from_decimal<Im>(c.coefficients[i]);
-    if (!c.tangent.empty()) {
-      if (c.tangent.size() != c.coefficients.size())
-        throw std::invalid_argument("tangent and candidate differ in length");
-      x = x + (Rc - arith::from_decimal<Im>(c.R0)) * arith::from_decimal<Im>(c.tangent[i]);
-    }
-    return x;
-  };
   Im sum(0);
   const std::size_t n = std::max(a.coefficients.size(), b.coefficients.size());
-  for (std::size_t i = 0; i < n; ++i) sum = sum + boost::numeric::abs(comp(a, i) - comp(b, i));
+  for (std::size_t i = 0; i < n; ++i)
+    sum = sum + boost::numeric::abs(centre_component(a, Rc, i) - centre_component(b, Rc, i));
   return arith::upper_up(sum);
 }
 
@@ -98,14 +100,7 @@ ChartPoint berman_chart_point(const Centre& c, double r_up, const std::string& R
   if (!(arith::lower_down(Rc) > 0 || arith::upper_up(Rc) < 0))
     throw std::invalid_argument("berman_chart_point: R = " + R_joint + " must be nonzero");
   if (c.coefficients.size() < 3) throw std::invalid_argument("berman_chart_point: candidate shorter than 3");
-  if (!c.tangent.empty() && c.tangent.size() != c.coefficients.size())
-    throw std::invalid_argument("tangent and candidate differ in length");
-  const Im delta = c.tangent.empty() ? Im(0) : Rc - arith::from_decimal<Im>(c.R0);
-  const auto comp = [&](std::size_t i) {
-    Im x = arith::from_decimal<Im>(c.coefficients[i]);
-    if (!c.tangent.empty()) x = x + delta * arith::from_decimal<Im>(c.tangent[i]);
-    return x;
-  };
+  const auto comp = [&](std::size_t i) { return centre_component(c, Rc, i); };
   const Im ball(-r_up, r_up);
   const Im fp0 = comp(0) + ball;
   Im u0(0);  // u(0) = Σ_k u_k T_k(−1) = Σ_k (−1)^k u_k (cheb::value_at_0)
