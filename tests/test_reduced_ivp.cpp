@@ -163,6 +163,17 @@ TEST_CASE("CLI: a reduced certificate re-checks; an edited value or a cut file i
   REQUIRE(rc == 0);
   CHECK(out.find("reduced ODE") != std::string::npos);
   CHECK(run("recheck " + dir + "/r200.json").first == 0);
+  {
+    // An interval of R (a sweep box): values by monotonicity (S12'), widened so that the re-proof at
+    // 64 bits lies inside; the recheck must confirm every value (it failed before the widening).
+    auto [rc2, out2] = run("verify --R=200:200.00001 --json " + dir + "/r200box.json");
+    REQUIRE(rc2 == 0);
+    std::ifstream bin(dir + "/r200box.json");
+    std::stringstream bs;
+    bs << bin.rdbuf();
+    CHECK(bs.str().find("by monotonicity (S12')") != std::string::npos);
+    CHECK(run("recheck " + dir + "/r200box.json").first == 0);
+  }
   std::ifstream in(dir + "/r200.json");
   std::stringstream ss;
   ss << in.rdbuf();

@@ -40,7 +40,8 @@ void reduced_into(json& j, const proof::ReducedResult& r) {
                         : "none";
   j["error_bounds_meaning"] =
       "half-width of the certified tube: |f^(k)(eta) - m_k(eta)| <= bound for every eta in [0,1], m_k the "
-      "midpoint of the certified pointwise enclosure (docs/method.md (S11))";
+      "midpoint of the certified pointwise enclosure (when the bracket is split, that of the piece holding "
+      "the solution's s; docs/method.md (S11))";
   const auto id_pair = [](const arith::Id& x) { return json::array({down_str(x.lower()), up_str(x.upper())}); };
   j["bounds"] = {{"R(s_lo)", id_pair(r.R_at_s_lo)},
                  {"R(s_hi)", id_pair(r.R_at_s_hi)},
@@ -372,8 +373,9 @@ Stored parse(const json& j) {
   if (j.contains("moving_centre") && s.status == "certified") {
     const auto& mc = need(j, "moving_centre", json::value_t::object, "the radii about the moving centre");
     if (s.tangent_hex.empty())
-      throw format_error("certificate: moving_centre is present but candidate.tangent_hex is not (rule: a moving "
-                         "centre needs a tangent)");
+      throw format_error(
+          "certificate: moving_centre is present but candidate.tangent_hex is not (rule: a moving "
+          "centre needs a tangent)");
     const auto num = [&](const char* k, bool up) {
       const std::string t = need(mc, k, json::value_t::string, "decimal string").get<std::string>();
       double v = 0;

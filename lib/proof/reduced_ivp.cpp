@@ -497,7 +497,7 @@ std::string dec_hi(const I& x) {
 // R by the mean-value form about the midpoint of Σ intersected with the direct product. Returns ""
 // or the failure of the run; the enclosures are set only on success.
 template <Interval I>
-std::string R_at(const I& s, int eps, int nth, const Settings& cfg, I* out_R, I* out_sig) {
+std::string R_at(const I& s, int eps, int nth, const Settings& cfg, I* out_R, I* out_sig, I* out_g2 = nullptr) {
   const Run<I> run = integrate(s, eps, nth, false, cfg);
   if (!run.ok) return run.failure;
   const I sig = isolate_zero(run, nth - 1, s, eps, cfg.p);
@@ -510,6 +510,7 @@ std::string R_at(const I& s, int eps, int nth, const Settings& cfg, I* out_R, I*
   *out_R = boost::numeric::intersect(sig * model::reduced_g(0, sig, s, eps, st[0]),
                                      sm * model::reduced_g(0, sm, s, eps, ym[0]) + slope * (sig - sm));
   *out_sig = sig;
+  if (out_g2) *out_g2 = model::reduced_g(2, sig, s, eps, st[2]);
   return "";
 }
 
@@ -522,6 +523,19 @@ Settings settings_for(int eps, int bits) {
   cfg.lohner = eps < 0;  // the fast mode decays: plain intervals wrap (S13)
   return cfg;
 }
+
+// What a variational run over a piece P of s tells step 3 of the proof (values, tube, structure).
+template <Interval I>
+struct PieceView {
+  std::array<I, 4> dv;                              // d/ds of the values over P (numerator over the R interval)
+  std::array<I, 4> vh, vp;                          // direct hull over P; mean-value form about P's midpoint (or vh)
+  std::array<I, 4> ds_sup{I(0), I(0), I(0), I(0)};  // sup over η of |∂f^(k)/∂s| over P (S11)
+  std::array<I, 4> tube;                            // tube half-widths about P's own centre (S11)
+  std::vector<arith::Id> prof_f, prof_fp;
+  Structure structure;
+  int steps = 0;
+  I piece;
+};
 
 struct Proved {
   ReducedResult r;
@@ -560,13 +574,11 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
   if (sgn(S) == 0) return fail(Part::uniqueness, "the uniqueness set S contains s = 0");
 
   // 1. R at the bracket ends (thin s).
-  auto R_of = [&](const I& s, I* out_R) -> std::string {
-    I sig;
-    return R_at<I>(s, eps, nth, cfg, out_R, &sig);
-  };
-  I Ra, Rb;
-  if (auto e = R_of(s_a, &Ra); !e.empty()) return fail(Part::integration, "at s_lo: " + e);
-  if (auto e = R_of(s_b, &Rb); !e.empty()) return fail(Part::integration, "at s_hi: " + e);
+  I Ra, Rb, sig_a, sig_b, g2_a, g2_b;  // σ and g''(σ) at the ends serve the values (step 3)
+  if (auto e = R_at<I>(s_a, eps, nth, cfg, &Ra, &sig_a, &g2_a); !e.empty())
+    return fail(Part::integration, "at s_lo: " + e);
+  if (auto e = R_at<I>(s_b, eps, nth, cfg, &Rb, &sig_b, &g2_b); !e.empty())
+    return fail(Part::integration, "at s_hi: " + e);
   r.R_at_s_lo = arith::to_id(Ra);
   r.R_at_s_hi = arith::to_id(Rb);
   const bool up = Ra.upper() < R.lower() && R.upper() < Rb.lower();
@@ -582,128 +594,80 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
   r.log.push_back("bracket: R(s_lo), R(s_hi) straddle R (intermediate value theorem, (S10)); width of R(s_lo) " +
                   std::to_string(arith::width_up(Ra)));
 
-  // 2. Monotonicity of R(s) on S (uniqueness) with the variational equation (S6), S split into
-  // pieces when one run over all of S cannot isolate the zeros of g'.
-  auto slope_on = [&](const I& Sp, I* d_out) -> std::string {
-    const Run<I> run = integrate(Sp, eps, nth, true, cfg);
-    if (!run.ok) return "over S: " + run.failure;
-    // dR/ds (S8) at the zeros of g' for all s in the piece: Σ by bisection, the state there pointwise.
-    const I sigS = isolate_zero(run, nth - 1, Sp, eps, cfg.p);
-    const auto [a, b] = run.zero_runs[nth - 1];
-    const auto y = eval_at(run, a, b, 8, cfg.p, sigS);
-    const I g = model::reduced_g(0, sigS, Sp, eps, y[0]);
-    const I gpp = model::reduced_g(2, sigS, Sp, eps, y[2]);
-    if (sgn(gpp) == 0) return "g'' may vanish where g' does (over S)";
-    *d_out =
-        I(0) - model::reduced_g_ds(1, sigS, y[1], y[5]) * g / gpp + sigS * model::reduced_g_ds(0, sigS, y[0], y[4]);
-    return "";
+  // Numerators of the values (S3): R f'(0) = ε σ², R f'''(0) = σ⁴ s, R f''(1) = σ³ g''(σ), R K = σ⁴ (1 + s).
+  auto numerators = [&](const I& sig, const I& s, const I& g2) {
+    const I q2 = sig * sig, q3 = q2 * sig, q4 = q2 * q2;
+    return std::array<I, 4>{I(eps) * q2, q4 * s, q3 * g2, q4 * (I(1) + s)};
   };
-  {
-    std::string why;
-    I d;
-    for (int n : {1, 4, 16}) {
-      why.clear();
-      const auto parts = pieces(S, n);
-      for (std::size_t i = 0; i < parts.size() && why.empty(); ++i) {
-        I di;
-        why = slope_on(parts[i], &di);
-        d = i == 0 ? di : hull2(d, di);
-        if (why.empty() && sgn(d) == 0) {
-          char buf[200];
-          std::snprintf(buf, sizeof buf, "uniqueness: dR/ds over S in [%.3g, %.3g] may vanish", arith::to_id(d).lower(),
-                        arith::to_id(d).upper());
-          why = buf;
-        }
-      }
-      if (why.empty()) {
-        r.log.push_back("uniqueness: dR/ds has one sign on S (" + std::to_string(n) + " piece(s))");
-        break;
-      }
-    }
-    if (!why.empty()) return fail(Part::uniqueness, why);
-    r.dR_ds = arith::to_id(d);
-  }
-
-  // 3. Values, tube and structure for s in [s_lo, s_hi], in pieces when the bracket is wide (an
-  // interval of R): each piece by the mean-value form, then hulls.
-  auto values_on = [&](const I& s_ab, ReducedResult& r) -> std::string {
-    // 3. Values by the mean-value form (S12): V(s) ∈ V(s_m) + V'([s_lo, s_hi]) · ([s_lo, s_hi] − s_m), with
-    // V' from the variational equation (S6); a plain hull over s would lose the correlation of σ and s.
-    const I s_m(boost::numeric::median(s_ab));
-    const Run<I> mrun = integrate(s_m, eps, nth, false, cfg);
-    if (!mrun.ok) return "at the bracket midpoint: " + mrun.failure;
-    const Run<I> run = integrate(s_ab, eps, nth, true, cfg);
-    if (!run.ok) return "over [s_lo, s_hi]: " + run.failure;
-    r.steps = static_cast<int>(run.steps.size());
-    const I sig_m = isolate_zero(mrun, nth - 1, s_m, eps, cfg.p);
-    const auto [ma, mb] = mrun.zero_runs[nth - 1];
-    const auto ym = eval_at(mrun, ma, mb, 4, cfg.p, sig_m);
-    const I sig = isolate_zero(run, nth - 1, s_ab, eps, cfg.p);
+  // What one variational run over a piece P of s gives for step 3: derivatives and direct hulls of
+  // the values, the tube's ingredients, profile samples and the sign structure. with_mid: also the
+  // mean-value form about the piece's midpoint (one more run without the variational part).
+  auto view_of = [&](const Run<I>& run, const I& P, bool with_mid, PieceView<I>& v) -> std::string {
+    v.steps = static_cast<int>(run.steps.size());
+    v.piece = P;
+    const I sig = isolate_zero(run, nth - 1, P, eps, cfg.p);
     const auto [za, zb] = run.zero_runs[nth - 1];
     const auto yv = eval_at(run, za, zb, 8, cfg.p, sig);
-    const I ds = s_ab - s_m;
-    {
-      const I q2 = sig_m * sig_m, q3 = q2 * sig_m, q4 = q2 * q2;
-      const std::array<I, 4> vm{I(eps) * q2 / R, q4 * s_m / R, q3 * model::reduced_g(2, sig_m, s_m, eps, ym[2]) / R,
-                                q4 * (I(1) + s_m) / R};
-      const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]), g3 = model::reduced_g(3, sig, s_ab, eps, yv[3]);
-      const I sp = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;  // σ'(s), (S8)
-      const I dg2 = model::reduced_g_ds(2, sig, yv[2], yv[6]);
-      const I p2 = sig * sig, p3 = p2 * sig, p4 = p2 * p2;
-      const std::array<I, 4> dv{I(2 * eps) * sig * sp / R, (I(4) * p3 * sp * s_ab + p4) / R,
-                                (I(3) * p2 * sp * g2 + p3 * (g3 * sp + dg2)) / R,
-                                (I(4) * p3 * sp * (I(1) + s_ab) + p4) / R};
-      // The direct hull over the bracket is also an enclosure; for wide brackets it is the tighter one.
-      const std::array<I, 4> vh{I(eps) * p2 / R, p4 * s_ab / R, p3 * g2 / R, p4 * (I(1) + s_ab) / R};
+    const I g2 = model::reduced_g(2, sig, P, eps, yv[2]), g3 = model::reduced_g(3, sig, P, eps, yv[3]);
+    if (sgn(g2) == 0) return "g'' may vanish where g' does (over a piece of the bracket)";
+    const I sp = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;  // σ'(s), (S8)
+    const I dg2 = model::reduced_g_ds(2, sig, yv[2], yv[6]);
+    const I p2 = sig * sig, p3 = p2 * sig, p4 = p2 * p2;
+    v.dv = {I(2 * eps) * sig * sp / R, (I(4) * p3 * sp * P + p4) / R,
+            (p3 * (g3 * sp + dg2) - I(3) * p2 * model::reduced_g_ds(1, sig, yv[1], yv[5])) / R,
+            (I(4) * p3 * sp * (I(1) + P) + p4) / R};
+    const auto Nh = numerators(sig, P, g2);
+    for (int k = 0; k < 4; ++k) v.vh[k] = v.vp[k] = Nh[k] / R;
+    std::array<I, 4> thin_m;
+    if (with_mid) {
+      // (S12): V(s) ∈ V(s_m) + V'(P) (P − s_m); a plain hull over s would lose the correlation of σ and s.
+      const I pm(boost::numeric::median(P));
+      const Run<I> mrun = integrate(pm, eps, nth, false, cfg);
+      if (!mrun.ok) return "at a piece's midpoint: " + mrun.failure;
+      const I sig_m = isolate_zero(mrun, nth - 1, pm, eps, cfg.p);
+      const auto [ma, mb] = mrun.zero_runs[nth - 1];
+      const auto ym = eval_at(mrun, ma, mb, 4, cfg.p, sig_m);
+      const auto Nm = numerators(sig_m, pm, model::reduced_g(2, sig_m, pm, eps, ym[2]));
+      for (int k = 0; k < 4; ++k) v.vp[k] = boost::numeric::intersect(Nm[k] / R + v.dv[k] * (P - pm), v.vh[k]);
+      thin_m = tube_direct(mrun, pm, sig_m, R, eps, cfg.p);
+    }
+    const auto direct = tube_direct(run, P, sig, R, eps, cfg.p);
+    // sup |∂f^(k)/∂s| over the steps up to the wall, f^(k) = σ^{k+1} g^(k)(σ η)/R (S11).
+    for (const auto& st : run.steps) {
+      if (st.t0 > sig.upper()) break;
+      const I T = hull2(I(st.t0), I(st.t1));
+      const auto G = g_boxes(st, T, P, eps);
       for (int k = 0; k < 4; ++k) {
-        const I v = boost::numeric::intersect(vm[k] + dv[k] * ds, vh[k]);
-        r.value[k] = arith::to_id(v);
-        r.value_lo[k] = dec_lo(v);
-        r.value_hi[k] = dec_hi(v);
+        I sk(1);
+        for (int i = 0; i < k; ++i) sk = sk * sig;
+        const I dgk = model::reduced_g_ds(k, T, st.B[k], st.B[4 + k]);
+        const I d = mag((I(k + 1) * sk * sp * G[k] + sk * sig * (G[k + 1] * (T / sig) * sp + dgk)) / R);
+        if (v.ds_sup[k].upper() < d.upper()) v.ds_sup[k] = I(d.upper());
       }
     }
-
-    // Tube half-widths (S11): the smaller of (a) the direct bound at s_m plus sup |∂f^(k)/∂s| · |s − s_m|
-    // over the bracket (a sup of a sum is at most the sum of the sups) and (b) the direct bound over
-    // the whole bracket.
-    const auto thin = tube_direct(mrun, s_m, sig_m, R, eps, cfg.p);
-    const auto direct = tube_direct(run, s_ab, sig, R, eps, cfg.p);
-    std::array<I, 4> slope{I(0), I(0), I(0), I(0)};
-    {
-      const I g2 = model::reduced_g(2, sig, s_ab, eps, yv[2]);
-      const I sp_ = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;
-      for (const auto& st : run.steps) {
-        if (st.t0 > sig.upper()) break;
-        const I T = hull2(I(st.t0), I(st.t1));
-        const auto G = g_boxes(st, T, s_ab, eps);
-        for (int k = 0; k < 4; ++k) {
-          I sk(1);
-          for (int i = 0; i < k; ++i) sk = sk * sig;
-          const I dgk = model::reduced_g_ds(k, T, st.B[k], st.B[4 + k]);
-          const I d = (I(k + 1) * sk * sp_ * G[k] + sk * sig * (G[k + 1] * (T / sig) * sp_ + dgk)) / R;
-          const I w = mag(d) * mag(ds);
-          if (slope[k].upper() < w.upper()) slope[k] = I(w.upper());
-        }
-      }
+    // Tube half-widths (S11): the smaller of (a) the direct bound at the piece's midpoint plus
+    // sup |∂f^(k)/∂s| · |s − s_m| over the piece (a sup of a sum is at most the sum of the sups) and
+    // (b) the direct bound over the piece.
+    for (int k = 0; k < 4; ++k) {
+      v.tube[k] = direct[k];
+      if (with_mid &&
+          thin_m[k].upper() + (v.ds_sup[k] * mag(P - I(boost::numeric::median(P)))).upper() < direct[k].upper())
+        v.tube[k] = thin_m[k] + v.ds_sup[k] * mag(P - I(boost::numeric::median(P)));
     }
-    for (int k = 0; k < 4; ++k)
-      r.c3_error[k] = std::min(arith::upper_up(thin[k] + slope[k]), arith::upper_up(direct[k]));
-    // Profile samples for reports (docs/certificate.md): f(η_i), f'(η_i) at η_i = i/128, from the
-    // pointwise enclosures of the run over the piece, f = σ g(σ η)/R, f' = σ² g'(σ η)/R.
-    r.profile_f.clear();
-    r.profile_fp.clear();
+    // Profile samples for reports (docs/certificate.md): f(η_i), f'(η_i) at η_i = i/128,
+    // f = σ g(σ η)/R, f' = σ² g'(σ η)/R.
     for (int i = 0; i <= kProfileSamples; ++i) {
       const I eta = I(i) / I(kProfileSamples);
       const I tt = sig * eta;
       const auto y = eval_at(run, 0, static_cast<int>(run.steps.size()) - 1, 4, cfg.p, tt);
-      r.profile_f.push_back(arith::to_id(sig * model::reduced_g(0, tt, s_ab, eps, y[0]) / R));
-      r.profile_fp.push_back(arith::to_id(sig * sig * model::reduced_g(1, tt, s_ab, eps, y[1]) / R));
+      v.prof_f.push_back(arith::to_id(sig * model::reduced_g(0, tt, P, eps, y[0]) / R));
+      v.prof_fp.push_back(arith::to_id(sig * sig * model::reduced_g(1, tt, P, eps, y[1]) / R));
     }
     // Structure and flow reversal (sign f^(k) = sign R · sign g^(k)).
-    Structure& S_ = r.structure;
+    Structure& S_ = v.structure;
     const int fp0 = eps * sR;
     std::vector<I> zeros;
-    for (int zi = 0; zi < nth; ++zi) zeros.push_back(isolate_zero(run, zi, s_ab, eps, cfg.p) / sig);
+    for (int zi = 0; zi < nth; ++zi) zeros.push_back(isolate_zero(run, zi, P, eps, cfg.p) / sig);
     if (fp0 < 0) {
       S_.label = "III";
       S_.reason = "f'(0) = eps sigma^2 / R < 0 (reduced chart eps = " + std::to_string(eps) + ")";
@@ -720,12 +684,12 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
       for (const auto& sp : run.steps) {
         if (sp.t0 > sig.upper()) break;
         const I T = hull2(I(sp.t0), I(sp.t1));
-        const int q2 = sR * sgn(model::reduced_g(2, T, s_ab, eps, sp.B[2]));
+        const int q2 = sR * sgn(model::reduced_g(2, T, P, eps, sp.B[2]));
         if (q2 < 0) {
           initial = false;
           continue;
         }
-        if (q2 == 0 && initial && sR * sgn(model::reduced_g(3, T, s_ab, eps, sp.B[3])) < 0) continue;
+        if (q2 == 0 && initial && sR * sgn(model::reduced_g(3, T, P, eps, sp.B[3])) < 0) continue;
         neg_pp = false;
         break;
       }
@@ -737,7 +701,7 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
         S_.label = "unclassified";
         for (const auto& sp : run.steps) {
           if (sp.t1 > sig.lower()) break;
-          if (sR * sgn(model::reduced_g(2, I(sp.t1), s_ab, eps, sp.y1[2])) > 0) {
+          if (sR * sgn(model::reduced_g(2, I(sp.t1), P, eps, sp.y1[2])) > 0) {
             S_.label = "II";
             char buf[160];
             std::snprintf(buf, sizeof buf, "f'(0) > 0 and f'' > 0 at eta = t/sigma with t = %.6g", sp.t1);
@@ -749,45 +713,158 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     }
     return "";
   };
+
+  // 2. Monotonicity of R(s) on S (uniqueness) with the variational equation (S6), S split into
+  // pieces when one run over all of S cannot isolate the zeros of g'. A piece that fails is split
+  // in four; the pieces that succeed are kept. The runs of pieces that meet the bracket also give
+  // the values (step 3), so a wide bracket needs no second set of variational runs.
+  std::vector<PieceView<I>> uviews;
+  const int fresh_n = std::clamp(static_cast<int>(rel_width(s_ab) / 1e-6), 1, 64);
+  auto slope_on = [&](const I& Sp, I* d_out, Run<I>* keep) -> std::string {
+    *keep = integrate(Sp, eps, nth, true, cfg);
+    const Run<I>& run = *keep;
+    if (!run.ok) return "over S: " + run.failure;
+    // dR/ds (S8) at the zeros of g' for all s in the piece: Σ by bisection, the state there pointwise.
+    const I sigS = isolate_zero(run, nth - 1, Sp, eps, cfg.p);
+    const auto [a, b] = run.zero_runs[nth - 1];
+    const auto y = eval_at(run, a, b, 8, cfg.p, sigS);
+    const I g = model::reduced_g(0, sigS, Sp, eps, y[0]);
+    const I gpp = model::reduced_g(2, sigS, Sp, eps, y[2]);
+    if (sgn(gpp) == 0) return "g'' may vanish where g' does (over S)";
+    *d_out =
+        I(0) - model::reduced_g_ds(1, sigS, y[1], y[5]) * g / gpp + sigS * model::reduced_g_ds(0, sigS, y[0], y[4]);
+    return "";
+  };
+  int n_unique = 0;  // pieces of S used
+  bool views_cover = true;
   {
-    const auto parts = pieces(s_ab, std::clamp(static_cast<int>(rel_width(s_ab) / 1e-6), 1, 64));
-    for (std::size_t i = 0; i < parts.size(); ++i) {
-      ReducedResult q;
-      if (auto e = values_on(parts[i], q); !e.empty()) return fail(Part::integration, e);
-      if (i == 0) {
-        r.value = q.value;
-        r.value_lo = q.value_lo;
-        r.value_hi = q.value_hi;
-        r.c3_error = q.c3_error;
-        r.structure = q.structure;
-        r.profile_f = q.profile_f;
-        r.profile_fp = q.profile_fp;
-        r.steps = q.steps;
+    std::string why;
+    I d;
+    // piece, depth (depth 2: a sixteenth of S). When S is the bracket and the bracket is wide, the
+    // values' pieces (below) serve the uniqueness too.
+    std::vector<std::pair<I, int>> todo{{S, 0}};
+    if (fresh_n > 1 && S.lower() == s_ab.lower() && S.upper() == s_ab.upper()) {
+      todo.clear();
+      const auto parts = pieces(S, fresh_n);
+      for (auto it = parts.rbegin(); it != parts.rend(); ++it) todo.push_back({*it, 2});
+    }
+    bool first = true;
+    while (!todo.empty()) {
+      const auto [Sp, depth] = todo.back();
+      todo.pop_back();
+      I di;
+      Run<I> run;
+      std::string e = slope_on(Sp, &di, &run);
+      if (e.empty() && sgn(di) == 0 && depth < 2) e = "dR/ds may vanish on the piece";
+      if (!e.empty()) {
+        if (depth >= 2) {
+          why = e;
+          break;
+        }
+        auto sub = pieces(Sp, 4);
+        for (auto it = sub.rbegin(); it != sub.rend(); ++it) todo.push_back({*it, depth + 1});
         continue;
       }
-      for (int k = 0; k < 4; ++k) {
-        r.value[k] = hull2(r.value[k], q.value[k]);
-        r.c3_error[k] = std::max(r.c3_error[k], q.c3_error[k]);
+      if (boost::numeric::overlap(Sp, s_ab)) {
+        PieceView<I> v;
+        if (!view_of(run, Sp, true, v).empty()) views_cover = false;
+        uviews.push_back(std::move(v));
       }
-      for (std::size_t i = 0; i < r.profile_f.size(); ++i) {
-        r.profile_f[i] = hull2(r.profile_f[i], q.profile_f[i]);
-        r.profile_fp[i] = hull2(r.profile_fp[i], q.profile_fp[i]);
-      }
-      if (q.structure.label != r.structure.label || q.structure.reversal != r.structure.reversal) {
-        r.structure = Structure{};
-        r.structure.label = "unclassified";
-        r.structure.reason = "the pieces of the bracket do not share one certified structure";
+      d = first ? di : hull2(d, di);
+      first = false;
+      ++n_unique;
+      if (sgn(d) == 0) {
+        char buf[200];
+        std::snprintf(buf, sizeof buf, "uniqueness: dR/ds over S in [%.3g, %.3g] may vanish", arith::to_id(d).lower(),
+                      arith::to_id(d).upper());
+        why = buf;
+        break;
       }
     }
-    if (parts.size() > 1) {
-      // Outward decimals of the hulls (the per-piece strings were of the pieces).
-      for (int k = 0; k < 4; ++k) {
-        r.value_lo[k] = arith::decimal_lower(r.value[k]);
-        r.value_hi[k] = arith::decimal_upper(r.value[k]);
-      }
-      r.log.push_back("values: hull over " + std::to_string(parts.size()) + " pieces of the bracket");
+    if (!why.empty()) return fail(Part::uniqueness, why);
+    r.log.push_back("uniqueness: dR/ds has one sign on S (" + std::to_string(n_unique) + " piece(s))");
+    r.dR_ds = arith::to_id(d);
+  }
+
+  // 3. Values, tube and structure for s in [s_lo, s_hi] (S11), (S12), from variational runs over
+  // pieces that cover the bracket, one per 1e-6 of its relative width and at most 64: those of
+  // step 2 when there are as many, else fresh ones (the values widen fast with a piece's width).
+  auto fresh_views = [&](std::vector<PieceView<I>>& out) -> std::string {
+    out.clear();
+    for (const I& P : pieces(s_ab, fresh_n)) {
+      const Run<I> run = integrate(P, eps, nth, true, cfg);
+      if (!run.ok) return "over [s_lo, s_hi]: " + run.failure;
+      PieceView<I> v;
+      if (auto e = view_of(run, P, true, v); !e.empty()) return e;
+      out.push_back(std::move(v));
+    }
+    return "";
+  };
+  auto one_structure = [](const std::vector<PieceView<I>>& vs) {
+    for (const auto& v : vs)
+      if (v.structure.label != vs[0].structure.label || v.structure.reversal != vs[0].structure.reversal) return false;
+    return true;
+  };
+  auto monotone = [](const std::vector<PieceView<I>>& vs, int k) {
+    const int s0 = sgn(vs[0].dv[k]);
+    for (const auto& v : vs)
+      if (sgn(v.dv[k]) != s0) return false;
+    return s0 != 0;
+  };
+  std::vector<PieceView<I>> views;
+  bool from_unique = views_cover && !uviews.empty();
+  const I fresh_w = wid(s_ab) / I(fresh_n) * I(1.0001);
+  for (const auto& v : uviews) from_unique = from_unique && wid(v.piece).upper() <= fresh_w.lower();
+  if (from_unique) {
+    views = std::move(uviews);
+    if (!one_structure(views)) {
+      r.log.push_back("values: the pieces of S do not give one structure; the bracket's own pieces");
+      from_unique = false;
     }
   }
+  if (!from_unique)
+    if (auto e = fresh_views(views); !e.empty()) return fail(Part::integration, e);
+
+  const auto Na = numerators(sig_a, s_a, g2_a), Nb = numerators(sig_b, s_b, g2_b);
+  int n_monotone = 0;
+  for (int k = 0; k < 4; ++k) {
+    I v = views[0].vp[k];
+    for (const auto& w : views) v = hull2(v, w.vp[k]);
+    // (S12') A value numerator whose derivative has one sign on pieces covering the bracket is
+    // monotone there: its range is the hull of its values at s_lo and s_hi.
+    // Both are widened by 2^-(bits - 24) relative (an interval of R only, a sweep box) so that a
+    // re-proof at more bits, whose enclosures differ by rounding, lies inside (recheck compares by
+    // containment; measured: 1.4e-11 relative at R = [300, 301], 53 against 64 bits).
+    const I rel_pad(std::ldexp(1.0, -(std::is_same_v<I, Id> ? 53 : bits) + 24));
+    if (fresh_n > 1) v = v + mag(v) * rel_pad * I(-1.0, 1.0);
+    if (monotone(views, k)) {
+      const I m = hull2(Na[k], Nb[k]) / R;
+      v = boost::numeric::intersect(v, m + mag(m) * rel_pad * I(-1.0, 1.0));
+      ++n_monotone;
+    }
+    r.value[k] = arith::to_id(v);
+    r.value_lo[k] = dec_lo(v);
+    r.value_hi[k] = dec_hi(v);
+    // The tube's centre is that of the piece holding the solution's s (S11).
+    r.c3_error[k] = 0;
+    for (const auto& w : views) r.c3_error[k] = std::max(r.c3_error[k], arith::upper_up(w.tube[k]));
+  }
+  r.profile_f = views[0].prof_f;
+  r.profile_fp = views[0].prof_fp;
+  r.structure = views[0].structure;
+  r.steps = views[0].steps;
+  for (const auto& v : views)
+    for (std::size_t i = 0; i < r.profile_f.size(); ++i) {
+      r.profile_f[i] = hull2(r.profile_f[i], v.prof_f[i]);
+      r.profile_fp[i] = hull2(r.profile_fp[i], v.prof_fp[i]);
+    }
+  if (!one_structure(views)) {
+    r.structure = Structure{};
+    r.structure.label = "unclassified";
+    r.structure.reason = "the pieces of the bracket do not share one certified structure";
+  }
+  r.log.push_back("values: " + std::to_string(views.size()) + " piece(s) of " + (from_unique ? "S" : "the bracket") +
+                  ", " + std::to_string(n_monotone) + " of 4 by monotonicity (S12')");
   r.certified = true;
   r.log.push_back("certified: " + std::to_string(r.steps) + " Taylor steps of order " + std::to_string(cfg.p));
   return out;
@@ -902,7 +979,10 @@ ReducedResult reduced_certify(const std::string& R_lo, const std::string& R_hi, 
   }
   // S about s̄: uniqueness set. Type III: the variational run over a wide S loses the QR set (its
   // Jacobian over the hull grows without bound), so start S at twice the bracket.
+  // An interval of R with eps = 1 (a sweep box): S = the bracket, which the joints need (docs/sweep.md
+  // (S3'')); a wider S there only fails first (measured at R = [300, 301]).
   long double rho = eps < 0 && Rint.lower() > 0 ? 2 * (*sb - *sa) : std::max(std::fabs(*sbar) / 32, 2 * (*sb - *sa));
+  if (eps > 0 && R1 > R0) rho = 0;
   for (int attempt = 0; attempt < 12; ++attempt) {
     const long double lo = std::min(*sa, *sbar), hi = std::max(*sb, *sbar);
     const long double SA = std::min(lo, *sbar - rho), SB = std::max(hi, *sbar + rho);

@@ -33,7 +33,7 @@ struct ReducedResult {
   std::array<std::string, 4> value_lo, value_hi;  // f'(0), f'''(0), f''(1), K
   std::array<arith::Id, 4> value;
   // Half-width of the certified tube: |f^(k)(η) − m_k(η)| ≤ c3_error[k] for every η in [0,1], with
-  // m_k the midpoint of the certified pointwise enclosure (S11).
+  // m_k the midpoint of the certified pointwise enclosure (of the piece holding s when split; (S11)).
   std::array<double, 4> c3_error{};
   // Enclosures of f(η_i) and f'(η_i), η_i = i / kProfileSamples (for reports).
   std::vector<arith::Id> profile_f, profile_fp;
