@@ -527,8 +527,8 @@ Settings settings_for(int eps, int bits) {
 // What a variational run over a piece P of s tells step 3 of the proof (values, tube, structure).
 template <Interval I>
 struct PieceView {
-  std::array<I, 4> dv;                              // d/ds of the values over P (numerator over the R interval)
-  std::array<I, 4> vh, vp;                          // direct hull over P; mean-value form about P's midpoint (or vh)
+  std::array<I, 4> dv;  // d/ds of the values over P (numerator over the R interval)
+  std::array<I, 4> vp;  // values over P: mean-value form about its midpoint, or the direct hull
   std::array<I, 4> ds_sup{I(0), I(0), I(0), I(0)};  // sup over η of |∂f^(k)/∂s| over P (S11)
   std::array<I, 4> tube;                            // tube half-widths about P's own centre (S11)
   std::vector<arith::Id> prof_f, prof_fp;
@@ -617,7 +617,8 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
             (p3 * (g3 * sp + dg2) - I(3) * p2 * model::reduced_g_ds(1, sig, yv[1], yv[5])) / R,
             (I(4) * p3 * sp * (I(1) + P) + p4) / R};
     const auto Nh = numerators(sig, P, g2);
-    for (int k = 0; k < 4; ++k) v.vh[k] = v.vp[k] = Nh[k] / R;
+    std::array<I, 4> vh;  // direct hull over P
+    for (int k = 0; k < 4; ++k) vh[k] = v.vp[k] = Nh[k] / R;
     std::array<I, 4> thin_m;
     if (with_mid) {
       // (S12): V(s) ∈ V(s_m) + V'(P) (P − s_m); a plain hull over s would lose the correlation of σ and s.
@@ -628,7 +629,7 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
       const auto [ma, mb] = mrun.zero_runs[nth - 1];
       const auto ym = eval_at(mrun, ma, mb, 4, cfg.p, sig_m);
       const auto Nm = numerators(sig_m, pm, model::reduced_g(2, sig_m, pm, eps, ym[2]));
-      for (int k = 0; k < 4; ++k) v.vp[k] = boost::numeric::intersect(Nm[k] / R + v.dv[k] * (P - pm), v.vh[k]);
+      for (int k = 0; k < 4; ++k) v.vp[k] = boost::numeric::intersect(Nm[k] / R + v.dv[k] * (P - pm), vh[k]);
       thin_m = tube_direct(mrun, pm, sig_m, R, eps, cfg.p);
     }
     const auto direct = tube_direct(run, P, sig, R, eps, cfg.p);
