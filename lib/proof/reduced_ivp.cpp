@@ -610,19 +610,19 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     const auto yv = eval_at(run, za, zb, 8, cfg.p, sig);
     const I g2 = model::reduced_g(2, sig, P, eps, yv[2]), g3 = model::reduced_g(3, sig, P, eps, yv[3]);
     if (sgn(g2) == 0) return "g'' may vanish where g' does (over a piece of the bracket)";
-    const I sp = I(0) - model::reduced_g_ds(1, sig, yv[1], yv[5]) / g2;  // σ'(s), (S8)
+    const I dg1 = model::reduced_g_ds(1, sig, yv[1], yv[5]);
+    const I sp = I(0) - dg1 / g2;  // σ'(s), (S8)
     const I dg2 = model::reduced_g_ds(2, sig, yv[2], yv[6]);
     const I p2 = sig * sig, p3 = p2 * sig, p4 = p2 * p2;
-    v.dv = {I(2 * eps) * sig * sp / R, (I(4) * p3 * sp * P + p4) / R,
-            (p3 * (g3 * sp + dg2) - I(3) * p2 * model::reduced_g_ds(1, sig, yv[1], yv[5])) / R,
+    v.dv = {I(2 * eps) * sig * sp / R, (I(4) * p3 * sp * P + p4) / R, (p3 * (g3 * sp + dg2) - I(3) * p2 * dg1) / R,
             (I(4) * p3 * sp * (I(1) + P) + p4) / R};
     const auto Nh = numerators(sig, P, g2);
     std::array<I, 4> vh;  // direct hull over P
     for (int k = 0; k < 4; ++k) vh[k] = v.vp[k] = Nh[k] / R;
     std::array<I, 4> thin_m;
+    const I pm(boost::numeric::median(P));
     if (with_mid) {
       // (S12): V(s) ∈ V(s_m) + V'(P) (P − s_m); a plain hull over s would lose the correlation of σ and s.
-      const I pm(boost::numeric::median(P));
       const Run<I> mrun = integrate(pm, eps, nth, false, cfg);
       if (!mrun.ok) return "at a piece's midpoint: " + mrun.failure;
       const I sig_m = isolate_zero(mrun, nth - 1, pm, eps, cfg.p);
@@ -649,11 +649,13 @@ Proved prove_impl(const std::string& R_lo, const std::string& R_hi, int eps, int
     // Tube half-widths (S11): the smaller of (a) the direct bound at the piece's midpoint plus
     // sup |∂f^(k)/∂s| · |s − s_m| over the piece (a sup of a sum is at most the sum of the sups) and
     // (b) the direct bound over the piece.
+    const I half = mag(P - pm);
     for (int k = 0; k < 4; ++k) {
       v.tube[k] = direct[k];
-      if (with_mid &&
-          thin_m[k].upper() + (v.ds_sup[k] * mag(P - I(boost::numeric::median(P)))).upper() < direct[k].upper())
-        v.tube[k] = thin_m[k] + v.ds_sup[k] * mag(P - I(boost::numeric::median(P)));
+      if (with_mid) {
+        const I a = thin_m[k] + v.ds_sup[k] * half;
+        if (a.upper() < direct[k].upper()) v.tube[k] = a;
+      }
     }
     // Profile samples for reports (docs/certificate.md): f(η_i), f'(η_i) at η_i = i/128,
     // f = σ g(σ η)/R, f' = σ² g'(σ η)/R.
