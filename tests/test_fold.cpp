@@ -9,6 +9,7 @@
 
 #include "arith/interval.hpp"
 #include "candidate/fold_candidate.hpp"
+#include "candidate/reduced_shooting.hpp"
 #include "proof/branches.hpp"
 #include "proof/fold.hpp"
 #include "reference/berman_shooting.hpp"
@@ -110,4 +111,39 @@ TEST_CASE("a wrong candidate is not certified, and the failure names the inequal
   const auto r2 = proof::fold_verify<arith::Id>(y);
   CHECK_FALSE(r2.certified);
   CHECK_FALSE(r2.failure.empty());
+}
+
+TEST_CASE("R* is the minimum of R(s) in the reduced chart eps = -1, wall at the second zero of f'") {
+  // A second route to the fold (docs/branches.md): in Berman's symmetry-reduced form the pair II/III
+  // (near R*) is one curve s -> R(s) of the chart eps = -1, n = 2, and the fold is its minimum. Golden
+  // section on log s with the long-double reduced shooting (lib/candidate, no Chebyshev, no extended
+  // system) must land on the certified R* to rounding, and at an f'(0) inside the fold's enclosure's
+  // neighbourhood. A fold enclosure off by more than 1e-12 fails here.
+  const auto& f = fold_once();
+  REQUIRE(f.certified);
+  const auto R_of = [](long double ls) { return candidate::reduced_shoot({-1, 2}, std::exp(ls)).R; };
+  long double a = 0, b = 1;  // log s in [0, 1]: measured to hold the minimum (s ≈ 1.47)
+  const long double g = (std::sqrt(5.0L) - 1) / 2;
+  long double c = b - g * (b - a), d = a + g * (b - a), fc = R_of(c), fd = R_of(d);
+  for (int i = 0; i < 80; ++i) {
+    if (fc < fd) {
+      b = d, d = c, fd = fc, c = b - g * (b - a), fc = R_of(c);
+    } else {
+      a = c, c = d, fc = fd, d = a + g * (b - a), fd = R_of(d);
+    }
+  }
+  const auto shot = candidate::reduced_shoot({-1, 2}, std::exp((a + b) / 2));
+  REQUIRE(shot.ok);
+  const double Rmin = static_cast<double>(shot.R);
+  CAPTURE(Rmin);
+  CHECK(Rmin > f.R.lower() - 1e-12);
+  CHECK(Rmin < f.R.upper() + 1e-12);
+  // The minimum is a true one on both sides (a turning point, not an end of the chart).
+  CHECK(R_of(a - 0.2L) > Rmin + 1e-6);
+  CHECK(R_of(b + 0.2L) > Rmin + 1e-6);
+  // f'(0) = eps sigma^2 / R at the minimum: within 1e-6 of the fold's (the tangent direction makes
+  // f'(0) vary to first order in s, so only loosely).
+  const double fp0 = static_cast<double>(-shot.sigma * shot.sigma / shot.R);
+  CHECK(fp0 > f.fp0.lower() - 1e-6);
+  CHECK(fp0 < f.fp0.upper() + 1e-6);
 }

@@ -9,8 +9,10 @@
 #include <sstream>
 
 #include "arith/interval.hpp"
+#include "candidate/reduced_shooting.hpp"
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
+#include "proof/labelled.hpp"
 #include "proof/reduced_ivp.hpp"
 #include "reference/berman_shooting.hpp"
 
@@ -189,4 +191,42 @@ TEST_CASE("CLI: a reduced certificate re-checks; an edited value or a cut file i
   CHECK(run("recheck " + dir + "/bad.json").first == 1);
   std::ofstream(dir + "/cut.json") << text.substr(0, text.size() / 2);
   CHECK(run("recheck " + dir + "/cut.json").first == 2);
+}
+
+TEST_CASE("type II below R = 40: a box in the reduced chart alone, values against the reference") {
+  // Before, a type II box below R = 40 went to the Chebyshev search and Newton-Kantorovich boxes
+  // ([20, 20.5] did not finish in 900 s); the chart eps = +1, s > 0 proves it in about a second.
+  proof::CertifyRequest q;
+  q.R_lo = "21";
+  q.R_hi = "21.25";
+  q.branch = "II";
+  const auto o = proof::certify_labelled(q);
+  REQUIRE(o.certified);
+  CHECK(o.method == "reduced-ivp");
+  CHECK(o.structure.label == "II");
+  CHECK(o.fppp0.lo_d > 0);  // type II is the s > 0 side of the chart
+  // The reference (Boost.Odeint, 80 digits) at R = 21.125, inside the box, started from the box's
+  // enclosures, must lie inside every value enclosure of the box (they hold for every R in it).
+  const auto ref = berman_reference_from("21.125", 0.5 * (o.fp0.lo_d + o.fp0.hi_d), 0.5 * (o.fppp0.lo_d + o.fppp0.hi_d));
+  CHECK(inside(ref.fp0, o.fp0));
+  CHECK(inside(ref.fppp0, o.fppp0));
+  CHECK(inside(ref.fpp1, o.fpp1));
+  CHECK(inside(ref.K, o.K));
+  // Not vacuous: the box's f'(0) band is narrower than its change over the box would allow a
+  // constant guess (f'(0) ≈ 0.91 at R = 21, measured), and excludes the type I value (≈ 1.2).
+  CHECK(o.fp0.hi_d - o.fp0.lo_d < 0.05);
+  CHECK(o.fp0.hi_d < 1.1);
+}
+
+TEST_CASE("type II Newton start: the measured table leads the shooting to s > 0 from R = 13.4 to 56") {
+  // Candidate side only (lib/candidate): the start must converge on the type II side of the chart.
+  for (double R : {13.4, 13.8, 14.5, 17.0, 22.0, 28.0, 36.0, 45.0, 56.0}) {
+    CAPTURE(R);
+    const auto s = candidate::reduced_solve({1, 1}, R, proof::reduced_guess(R, 1, 1, 1));
+    REQUIRE(s.has_value());
+    CHECK(*s > 0);
+    const auto shot = candidate::reduced_shoot({1, 1}, *s);
+    REQUIRE(shot.ok);
+    CHECK(std::fabs(static_cast<double>(shot.R) - R) < 1e-9 * R);
+  }
 }

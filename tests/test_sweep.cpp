@@ -130,7 +130,7 @@ TEST_CASE("type II from R = 40: unit boxes in the reduced chart, labelled II, s 
   CHECK(std::stod(d["boxes"][0]["values"]["f'''(0)"][0].get<std::string>()) > 0);
 }
 
-TEST_CASE("--width auto: zones of width 0.25 and 1, cut at R = 1 (I), 40 (II) and 500") {
+TEST_CASE("--width auto: zones of width 0.25 and 1, cut at R = 1 (I), 40 (II) and 500; type II narrower below 15") {
   namespace sw = porecert::certificate::sweep;
   const auto boxes = [](const char* lo, const char* hi, const char* branch) {
     sw::Params p;
@@ -146,6 +146,8 @@ TEST_CASE("--width auto: zones of width 0.25 and 1, cut at R = 1 (I), 40 (II) an
   CHECK(boxes("0.5", "600", "I") == 2 + 499 + 400);  // and [500, 600] by 0.25 again
   CHECK(boxes("1", "2", "I") == 1);
   CHECK(boxes("30", "50", "II") == 40 + 10);
+  CHECK(boxes("13.4", "16", "II") == 100 + 250 + 50 + 4);  // narrower towards the end of type II
+  CHECK(boxes("12", "13", "II") == 4);
   CHECK(boxes("13", "14", "III") == 4);
   sw::Params p;
   p.R_lo = "-1";

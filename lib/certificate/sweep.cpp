@@ -101,13 +101,19 @@ json identity(const Params& p) {
 }
 
 // Width of the initial boxes for --width auto (docs/sweep.md S2): 1 where Berman's boxes go to the
-// reduced method (type I from R = 1, type II from R = 40) up to R = 500, 0.25 beyond (unit boxes
+// reduced method (type I from R = 1, type II from R = 40; its boxes from R = 13 are reduced ones too,
+// but below 40 half of a unit box already fails) up to R = 500, 0.25 beyond (unit boxes
 // failed near R = 1000) and for the Newton-Kantorovich boxes with the moving centre (every other
 // case). The range is cut at each change of width that lies inside it.
 static std::vector<std::pair<std::string, std::string>> auto_segments(const Params& p, std::vector<std::string>* w) {
   const bool reduced = p.model.is_berman() && (p.branch == "I" || p.branch == "II");
   // (start of a zone, its width), zones in increasing R; the first starts at -infinity.
   std::vector<std::pair<std::string, std::string>> zones{{"", "0.25"}};
+  if (reduced && p.branch == "II")
+    // Towards R = 13.12 (the end of type II, s -> infinity) the boxes that pass shrink like about
+    // (R - 13.12)^2.2 (measured [13.4, 100]); starting near that width spares failed attempts and lets
+    // the threads share the narrow part instead of one thread bisecting a whole initial box.
+    zones.insert(zones.end(), {{"13", "0.001"}, {"13.5", "0.002"}, {"14", "0.02"}, {"15", "0.25"}});
   if (reduced) zones.insert(zones.end(), {{p.branch == "I" ? "1" : "40", "1"}, {"500", "0.25"}});
   const auto less = [](const std::string& x, const std::string& y) {
     return arith::tri_less(arith::from_decimal<arith::Id>(x), arith::from_decimal<arith::Id>(y)) == arith::Tri::yes;
@@ -419,7 +425,12 @@ json assemble(const Params& p, const Plan& plan, const std::vector<std::optional
       }
     }
     std::string msg = "sweep of type " + p.branch + " stopped at its first gap";
-    if (fold_branch(p))
+    if (p.branch == "II" && p.model.is_berman())
+      msg +=
+          " while approaching the end of type II: along this branch f'(0) falls to 0 near R = 13.12 (measured, "
+          "docs/branches.md), below which the solution continuing it has f'(0) < 0 and the structure of type III, "
+          "down to the fold R* near 12.165 (docs/fold.md); the reduced chart's boxes shrink towards R = 13.12";
+    else if (fold_branch(p))
       msg +=
           " while approaching the fold of types II/III (R* near 12.165, docs/fold.md; below R* these branches do "
           "not exist)";

@@ -20,6 +20,10 @@ struct BranchesOutcome {
 // search runs up to kSearchUpToR (measured reach of its proofs, docs/branches.md).
 inline constexpr double kReducedFromR = 40;
 inline constexpr double kSearchUpToR = 60;
+// Type II (f'(0) > 0, s > 0 in the chart eps = +1) is tried in the reduced chart from here on: along
+// the branch R(s) falls towards R ≈ 13.12 as s -> infinity (f'(0) -> 0; measured, docs/branches.md),
+// and below that R the solution continuing it has f'(0) < 0 (structure III).
+inline constexpr double kTypeIIChartFrom = 13;
 
 BranchesOutcome certify_branches(const CertifyRequest& req);
 
