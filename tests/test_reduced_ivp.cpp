@@ -12,7 +12,6 @@
 #include "candidate/reduced_shooting.hpp"
 #include "proof/branches.hpp"
 #include "proof/certify.hpp"
-#include "proof/labelled.hpp"
 #include "proof/reduced_ivp.hpp"
 #include "reference/berman_shooting.hpp"
 
@@ -191,31 +190,6 @@ TEST_CASE("CLI: a reduced certificate re-checks; an edited value or a cut file i
   CHECK(run("recheck " + dir + "/bad.json").first == 1);
   std::ofstream(dir + "/cut.json") << text.substr(0, text.size() / 2);
   CHECK(run("recheck " + dir + "/cut.json").first == 2);
-}
-
-TEST_CASE("type II below R = 40: a box in the reduced chart alone, values against the reference") {
-  // Before, a type II box below R = 40 went to the Chebyshev search and Newton-Kantorovich boxes
-  // ([20, 20.5] did not finish in 900 s); the chart eps = +1, s > 0 proves it in about a second.
-  proof::CertifyRequest q;
-  q.R_lo = "21";
-  q.R_hi = "21.25";
-  q.branch = "II";
-  const auto o = proof::certify_labelled(q);
-  REQUIRE(o.certified);
-  CHECK(o.method == "reduced-ivp");
-  CHECK(o.structure.label == "II");
-  CHECK(o.fppp0.lo_d > 0);  // type II is the s > 0 side of the chart
-  // The reference (Boost.Odeint, 80 digits) at R = 21.125, inside the box, started from the box's
-  // enclosures, must lie inside every value enclosure of the box (they hold for every R in it).
-  const auto ref = berman_reference_from("21.125", 0.5 * (o.fp0.lo_d + o.fp0.hi_d), 0.5 * (o.fppp0.lo_d + o.fppp0.hi_d));
-  CHECK(inside(ref.fp0, o.fp0));
-  CHECK(inside(ref.fppp0, o.fppp0));
-  CHECK(inside(ref.fpp1, o.fpp1));
-  CHECK(inside(ref.K, o.K));
-  // Not vacuous: the box's f'(0) band is narrower than its change over the box would allow a
-  // constant guess (f'(0) ≈ 0.91 at R = 21, measured), and excludes the type I value (≈ 1.2).
-  CHECK(o.fp0.hi_d - o.fp0.lo_d < 0.05);
-  CHECK(o.fp0.hi_d < 1.1);
 }
 
 TEST_CASE("type II Newton start: the measured table leads the shooting to s > 0 from R = 13.4 to 56") {

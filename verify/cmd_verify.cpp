@@ -87,6 +87,13 @@ void print_summary(const proof::CertifyOutcome& o, const std::string& R_lo, cons
                 o.existence_radius, o.uniqueness_radius);
     std::printf("             (l1 norm of (%s, K, Chebyshev coefficients of %s'''))\n",
                 model::free_constant_text(o.model).c_str(), o.model.half_channel() ? "f" : "g");
+    if (o.moving_centre)
+      // (M3.12) restates the box's radii about one fixed candidate, which can leave no uniqueness
+      // radius; the per-R statement about the moving centre x(R) = x + (R - R0) x1 is the sharp one.
+      std::printf(
+          "             for each R of the box, about the moving centre x(R) = x + (R - R0) x1 (docs/method.md "
+          "M3.11):\n             within %.3g, the only one within %.3g\n",
+          o.centre_existence_radius, o.centre_uniqueness_radius);
     std::printf("  sup|f^(k) - candidate^(k)| <= %.3g for k = 0..3\n", o.c3_error[3]);
   }
   if (!o.model.is_berman()) {  // the model's own value keys (docs/models.md)

@@ -940,13 +940,20 @@ long double reduced_guess(double R, int eps, int nth, int sign_s) {
   if (eps < 0 && nth == 2) {
     // Type III (f'(0) < 0, wall at the second zero of f'): log-log interpolation in our own measured
     // candidates (reduced shooting, not a source); beyond the table the end slopes. Only a start for
-    // Newton: the proof checks whatever it converges to.
-    static constexpr double kR[] = {20, 100, 200, 400, 1000};
-    static constexpr double kS[] = {0.185, 0.0226, 0.00733, 0.00215, 0.000403};
-    const int n = 5;
+    // Newton: the proof checks whatever it converges to. Near the fold (R* ≈ 12.1651 at s ≈ 1.4711,
+    // docs/branches.md) R(s) is quadratic in s: the start stays on the type III side, s < 1.4711.
+    static constexpr double kR[] = {12.2838, 12.5573, 13.1208, 14.1645, 15.9651, 18.879, 23.2975, 29.5744,
+                                    37.9558, 48.5541, 61.4062, 100,     200,     400,     1000};
+    static constexpr double kS[] = {0.90484,  0.67032,  0.49659,  0.36788, 0.27253,  0.2019,  0.14957, 0.1108,
+                                    0.082085, 0.060810, 0.045049, 0.0226,  0.00733,  0.00215, 0.000403};
+    constexpr int n = 15;
+    if (R < kR[0]) {
+      const double q = std::sqrt(std::max(R - 12.1651, 0.0) / (kR[0] - 12.1651));
+      return static_cast<long double>(1.4711 - (1.4711 - kS[0]) * std::min(q, 1.0));
+    }
     int k = 0;
     while (k + 2 < n && R > kR[k + 1]) ++k;
-    const double x = std::log(std::max(R, 1.0)), x0 = std::log(kR[k]), x1 = std::log(kR[k + 1]);
+    const double x = std::log(R), x0 = std::log(kR[k]), x1 = std::log(kR[k + 1]);
     const double y0 = std::log(kS[k]), y1 = std::log(kS[k + 1]);
     return std::exp(static_cast<long double>(y0 + (x - x0) * (y1 - y0) / (x1 - x0)));
   }
