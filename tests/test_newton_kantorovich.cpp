@@ -142,3 +142,38 @@ TEST_CASE("first-order predictor (M3.11) and sharper Z2 (M3.10): an injection bo
   std::vector<std::string> short_t(box.tangent_hex.begin(), box.tangent_hex.end() - 1);
   CHECK_THROWS_AS(proof::recheck_berman(q.R_lo, q.R_hi, box.candidate_hex, 53, short_t), std::invalid_argument);
 }
+
+TEST_CASE("remedies (M5): precision stops when it does not lower Y0; a box is not re-proved for width") {
+  // R in [2, 2.4]: the radii polynomial fails on Y0, which is set by the box width (second order in
+  // it, (M3.11)), not by rounding. One MPFR attempt shows that; 256..1024 bits are not tried.
+  proof::CertifyRequest q;
+  q.R_lo = "2";
+  q.R_hi = "2.4";
+  q.method = "newton";
+  const auto wide = proof::certify_berman(q);
+  CHECK_FALSE(wide.certified);
+  CHECK(wide.failure.find("4 Z2 Y0") != std::string::npos);
+  int mpfr_attempts = 0;
+  bool stopped = false;
+  for (const auto& l : wide.log) {
+    if (l.rfind("MPFR ", 0) == 0) ++mpfr_attempts;
+    if (l.find("more precision did not lower Y0") != std::string::npos) stopped = true;
+  }
+  CHECK(mpfr_attempts == 1);
+  CHECK(stopped);
+  // A point R whose double proof is rounding-bound still gets its MPFR re-proof for width
+  // (R = 10: relative width 4e-12 in double, docs/performance.md) ...
+  proof::CertifyRequest p;
+  p.R_lo = p.R_hi = "10";
+  const auto point = proof::certify_berman(p);
+  REQUIRE(point.certified);
+  CHECK(point.precision_bits > 53);
+  // ... a box does not (its values are as wide as the box), and stays certified in double.
+  proof::CertifyRequest b;
+  b.R_lo = "-30.05";
+  b.R_hi = "-29.95";
+  const auto box = proof::certify_berman(b);
+  REQUIRE(box.certified);
+  CHECK(box.precision_bits == 53);
+  CHECK(box.K.hi_d - box.K.lo_d > 1e-6 * std::fabs(box.K.lo_d));
+}
