@@ -104,7 +104,8 @@ json identity(const Params& p) {
 // reduced method (type I from R = 1, type II from R = 40; its boxes from R = 13 are reduced ones too,
 // but below 40 half of a unit box already fails) up to R = 500, 0.25 beyond (unit boxes
 // failed near R = 1000) and for the Newton-Kantorovich boxes with the moving centre (every other
-// case). The range is cut at each change of width that lies inside it.
+// case); type III boxes start at their measured working widths. The range is cut at each change of
+// width that lies inside it.
 static std::vector<std::pair<std::string, std::string>> auto_segments(const Params& p, std::vector<std::string>* w) {
   const bool reduced = p.model.is_berman() && (p.branch == "I" || p.branch == "II");
   // (start of a zone, its width), zones in increasing R; the first starts at -infinity.
@@ -115,6 +116,19 @@ static std::vector<std::pair<std::string, std::string>> auto_segments(const Para
     // the threads share the narrow part instead of one thread bisecting a whole initial box.
     zones.insert(zones.end(), {{"13", "0.001"}, {"13.5", "0.002"}, {"14", "0.02"}, {"15", "0.25"}});
   if (reduced) zones.insert(zones.end(), {{p.branch == "I" ? "1" : "40", "1"}, {"500", "0.25"}});
+  if (p.model.is_berman() && p.branch == "III")
+    // Widths of type III boxes that certify (measured 2026-12-05, docs/performance.md): Newton-Kantorovich
+    // boxes are limited by Z0 near the fold (1.4e-4 at 12.2) and by Y0 ~ w^2 Z2 from R = 25 on (Z2 grows
+    // to 5e4 at 59: 1.3e-4); reduced boxes above 60 about 1e-3. Starting near these spares the failed
+    // attempts of bisecting from 0.25 (up to 3 s each near R = 50).
+    zones.insert(zones.end(), {{"12", "0.0002"},
+                               {"12.5", "0.001"},
+                               {"13", "0.002"},
+                               {"14", "0.004"},
+                               {"25", "0.0015"},
+                               {"35", "0.0005"},
+                               {"50", "0.0001"},
+                               {"60", "0.001"}});
   const auto less = [](const std::string& x, const std::string& y) {
     return arith::tri_less(arith::from_decimal<arith::Id>(x), arith::from_decimal<arith::Id>(y)) == arith::Tri::yes;
   };
