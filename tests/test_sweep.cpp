@@ -149,11 +149,12 @@ TEST_CASE("--width auto: zones of width 0.25 and 1, cut at R = 1 (I), 40 (II) an
   CHECK(boxes("13.4", "16", "II") == 100 + 250 + 50 + 4);  // narrower towards the end of type II
   CHECK(boxes("12", "13", "II") == 4);
   // Type III starts at its measured working widths (docs/sweep.md S2): 0.0002 next to the fold,
-  // 0.002 on [13, 14), 0.004 from 14, 0.0015 from 25, 0.0005 from 35, 0.0001 from 50, 0.001 from 60.
+  // 0.002 on [13, 14), 0.004 from 14, 0.0015 from 25, 0.001 from 35, 0.0008 from 40, 0.0005 from 45,
+  // 0.0003 from 50, 0.0002 from 53, 0.00015 from 56, 0.001 from 60.
   CHECK(boxes("12.2", "12.3", "III") == 500);
   CHECK(boxes("13", "14", "III") == 500);
   CHECK(boxes("20", "21", "III") == 250);
-  CHECK(boxes("59.9", "60.1", "III") == 1000 + 100);
+  CHECK(boxes("59.97", "60.1", "III") == 200 + 100);
   CHECK(boxes("1", "2", "III") == 4);  // no type III below the fold: the plain width, the proof says no
   sw::Params p;
   p.R_lo = "-1";

@@ -119,15 +119,19 @@ static std::vector<std::pair<std::string, std::string>> auto_segments(const Para
   if (p.model.is_berman() && p.branch == "III")
     // Widths of type III boxes that certify (measured 2026-12-05, docs/performance.md): Newton-Kantorovich
     // boxes are limited by Z0 near the fold (1.4e-4 at 12.2) and by Y0 ~ w^2 Z2 from R = 25 on (Z2 grows
-    // to 5e4 at 59: 1.3e-4); reduced boxes above 60 about 1e-3. Starting near these spares the failed
-    // attempts of bisecting from 0.25 (up to 3 s each near R = 50).
+    // to 5.6e4 at 59.5: 1.5e-4 certifies); reduced boxes above 60 about 1e-3. Starting near these spares
+    // the failed attempts of bisecting from 0.25 (up to 3 s each near R = 50).
     zones.insert(zones.end(), {{"12", "0.0002"},
                                {"12.5", "0.001"},
                                {"13", "0.002"},
                                {"14", "0.004"},
                                {"25", "0.0015"},
-                               {"35", "0.0005"},
-                               {"50", "0.0001"},
+                               {"35", "0.001"},
+                               {"40", "0.0008"},
+                               {"45", "0.0005"},
+                               {"50", "0.0003"},
+                               {"53", "0.0002"},
+                               {"56", "0.00015"},
                                {"60", "0.001"}});
   const auto less = [](const std::string& x, const std::string& y) {
     return arith::tri_less(arith::from_decimal<arith::Id>(x), arith::from_decimal<arith::Id>(y)) == arith::Tri::yes;
