@@ -130,7 +130,9 @@ TEST_CASE("type II from R = 40: unit boxes in the reduced chart, labelled II, s 
   CHECK(std::stod(d["boxes"][0]["values"]["f'''(0)"][0].get<std::string>()) > 0);
 }
 
-TEST_CASE("--width auto: zones of width 0.25 and 1, cut at R = 1 (I), 40 (II) and 500; type II narrower below 15; type III by measured widths") {
+TEST_CASE(
+    "--width auto: zones of width 0.25 and 1, cut at R = 1 (I), 40 (II) and 500; type II narrower below 15; type III "
+    "by measured widths") {
   namespace sw = porecert::certificate::sweep;
   const auto boxes = [](const char* lo, const char* hi, const char* branch) {
     sw::Params p;
@@ -142,7 +144,7 @@ TEST_CASE("--width auto: zones of width 0.25 and 1, cut at R = 1 (I), 40 (II) an
     CHECK(plan.points.back() == hi);
     return plan.points.size() - 1;
   };
-  CHECK(boxes("-50", "50", "I") == 204 + 49);       // [-50, 1] by 0.25, [1, 50] by 1
+  CHECK(boxes("-50", "50", "I") == 204 + 49);        // [-50, 1] by 0.25, [1, 50] by 1
   CHECK(boxes("0.5", "600", "I") == 2 + 499 + 400);  // and [500, 600] by 0.25 again
   CHECK(boxes("1", "2", "I") == 1);
   CHECK(boxes("30", "50", "II") == 40 + 10);
