@@ -429,7 +429,8 @@ CertifyOutcome certify_from(const CertifyRequest& req, const std::vector<double>
     }
     // More precision helps only while Y0 is rounding-bound. When the last doubling did not even halve
     // Y0 (an interval box: Y0 is then set by the box width, (M3.11)), the next ones will not either;
-    // stop rather than pay for 256-1024 bits (a failing Newton-Kantorovich box at R = [80, 80.001]: 78 s before this rule, 13 s after).
+    // stop rather than pay for 256-1024 bits (a failing Newton-Kantorovich box at R = [80, 80.001]: 78 s before this
+    // rule, 13 s after).
     if (!z_problem && last_Y0 > 0 && !(out.Y0 < 0.5 * last_Y0)) {
       log.push_back("stop: more precision did not lower Y0 (" + std::to_string(last_Y0) + " -> " +
                     std::to_string(out.Y0) + "); the residual is not rounding-bound");
