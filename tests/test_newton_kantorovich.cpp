@@ -15,6 +15,13 @@ proof::CertifyOutcome run(const std::string& R) {
   q.R_lo = q.R_hi = R;
   return proof::certify_berman(q);
 }
+proof::CertifyOutcome run_box(const std::string& lo, const std::string& hi, const std::string& method = "auto") {
+  proof::CertifyRequest q;
+  q.R_lo = lo;
+  q.R_hi = hi;
+  q.method = method;
+  return proof::certify_berman(q);
+}
 Id enc(const proof::Enclosure& e) { return Id(e.lo_d, e.hi_d); }
 }  // namespace
 
@@ -146,11 +153,7 @@ TEST_CASE("first-order predictor (M3.11) and sharper Z2 (M3.10): an injection bo
 TEST_CASE("remedies (M5): precision stops when it does not lower Y0; a box is not re-proved for width") {
   // R in [2, 2.4]: the radii polynomial fails on Y0, which is set by the box width (second order in
   // it, (M3.11)), not by rounding. One MPFR attempt shows that; 256..1024 bits are not tried.
-  proof::CertifyRequest q;
-  q.R_lo = "2";
-  q.R_hi = "2.4";
-  q.method = "newton";
-  const auto wide = proof::certify_berman(q);
+  const auto wide = run_box("2", "2.4", "newton");
   CHECK_FALSE(wide.certified);
   CHECK(wide.failure.find("4 Z2 Y0") != std::string::npos);
   int mpfr_attempts = 0;
@@ -163,16 +166,11 @@ TEST_CASE("remedies (M5): precision stops when it does not lower Y0; a box is no
   CHECK(stopped);
   // A point R whose double proof is rounding-bound still gets its MPFR re-proof for width
   // (R = 10: relative width 4e-12 in double, docs/performance.md) ...
-  proof::CertifyRequest p;
-  p.R_lo = p.R_hi = "10";
-  const auto point = proof::certify_berman(p);
+  const auto point = run("10");
   REQUIRE(point.certified);
   CHECK(point.precision_bits > 53);
   // ... a box does not (its values are as wide as the box), and stays certified in double.
-  proof::CertifyRequest b;
-  b.R_lo = "-30.05";
-  b.R_hi = "-29.95";
-  const auto box = proof::certify_berman(b);
+  const auto box = run_box("-30.05", "-29.95");
   REQUIRE(box.certified);
   CHECK(box.precision_bits == 53);
   CHECK(box.K.hi_d - box.K.lo_d > 1e-6 * std::fabs(box.K.lo_d));
